@@ -1,0 +1,56 @@
+// Type declarations for odex 2.x (it ships only TypeScript source, which fails strict checks).
+// API as in the package's own src/odex.ts: Hairer and Wanner's ODEX (Gragg-Bulirsch-Stoer
+// extrapolation) with dense output.
+declare module "odex" {
+  export type Derivative = (x: number, y: number[]) => number[];
+  export type OutputFunction = (
+    nr: number,
+    xold: number,
+    x: number,
+    y: number[],
+    // dense interpolator of component c at x, valid on [xold, x]
+    dense?: (c: number, x: number) => number,
+  ) => boolean | void;
+  export enum Outcome {
+    Converged = 0,
+    MaxStepsExceeded = 1,
+    EarlyReturn = 2,
+  }
+  export interface SolverResult {
+    y: number[];
+    outcome: Outcome;
+    nStep: number;
+    xEnd: number;
+    nAccept: number;
+    nReject: number;
+    nEval: number;
+  }
+  export class Solver {
+    constructor(n: number);
+    n: number;
+    uRound: number;
+    maxSteps: number;
+    initialStepSize: number;
+    maxStepSize: number;
+    maxExtrapolationColumns: number;
+    stepSizeSequence: number;
+    stabilityCheckCount: number;
+    stabilityCheckTableLines: number;
+    denseOutput: boolean;
+    denseOutputErrorEstimator: boolean;
+    denseComponents: number[] | undefined;
+    interpolationFormulaDegree: number;
+    stepSizeReductionFactor: number;
+    stepSizeFac1: number;
+    stepSizeFac2: number;
+    stepSizeFac3: number;
+    stepSizeFac4: number;
+    stepSafetyFactor1: number;
+    stepSafetyFactor2: number;
+    relativeTolerance: number | number[];
+    absoluteTolerance: number | number[];
+    debug: boolean;
+    solve(f: Derivative, x: number, y0: number[], xEnd: number, solOut?: OutputFunction): SolverResult;
+    grid(dt: number, out: (x: number, y: number[]) => boolean | void): OutputFunction;
+  }
+}
