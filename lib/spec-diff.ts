@@ -1,0 +1,260 @@
+/**
+ * Differences between two versions of a model: the spec as canonical, pretty-printed JSON
+ * compared line by line (with the `diff` package), and the verdict diff of their reports
+ * (claims added, removed, or whose status or deviation changed).
+ *
+ * Pure functions: no database, no Next.js. The compare page and the diff API both call them.
+ */
+import { diffLines } from "diff";
+import type { ClaimResult, ClaimStatus, Verdict } from "@/lib/engine/types";
+
+// ---------------------------------------------------------------------------
+// Canonical pretty-printed JSON
+// ---------------------------------------------------------------------------
+
+/** Arrays of plain values that fit in this many characters stay on one line (states, payoff rows). */
+const INLINE_ARRAY_WIDTH = 72;
+
+/**
+ * Object keys sorted by UTF-16 code units (the order RFC 8785 uses), two-space indentation,
+ * numbers as ECMAScript prints them (as RFC 8785 does). Short arrays of numbers, strings,
+ * booleans or null stay on one line, so a changed share or payoff shows as one changed line.
+ * The same value always gives the same text, whatever the key order of the upload.
+ */
+export function canonicalPretty(value: unknown): string {
+  return render(value, "") + "\n";
+}
+
+function isPlain(v: unknown): boolean {
+  return v === null || typeof v === "number" || typeof v === "string" || typeof v === "boolean";
+}
+
+function scalar(v: unknown): string {
+  if (typeof v === "number" && !Number.isFinite(v)) return "null"; // as JSON.stringify does
+  return JSON.stringify(v);
+}
+
+function render(value: unknown, indent: string): string {
+  if (isPlain(value)) return scalar(value);
+  const inner = indent + "  ";
+  if (Array.isArray(value)) {
+    if (value.length === 0) return "[]";
+    if (value.every(isPlain)) {
+      const oneLine = `[${value.map(scalar).join(", ")}]`;
+      if (oneLine.length + indent.length <= INLINE_ARRAY_WIDTH) return oneLine;
+    }
+    return `[\n${value.map((v) => inner + render(v, inner)).join(",\n")}\n${indent}]`;
+  }
+  if (typeof value === "object" && value !== undefined) {
+    const entries = Object.entries(value as Record<string, unknown>)
+      .filter(([, v]) => v !== undefined)
+      .sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0));
+    if (entries.length === 0) return "{}";
+    return `{\n${entries.map(([k, v]) => `${inner}${JSON.stringify(k)}: ${render(v, inner)}`).join(",\n")}\n${indent}}`;
+  }
+  // undefined, functions, symbols, bigint: not JSON; the spec never holds them after JSON.parse.
+  return "null";
+}
+
+// ---------------------------------------------------------------------------
+// Line diff
+// ---------------------------------------------------------------------------
+
+export type LineKind = "same" | "added" | "removed";
+
+export interface DiffLine {
+  kind: LineKind;
+  text: string;
+  /** 1-based line in the older text (absent for an added line). */
+  oldLine?: number;
+  /** 1-based line in the newer text (absent for a removed line). */
+  newLine?: number;
+}
+
+/** A run of unchanged lines left out of the view, between two shown parts. */
+export interface SkippedLines {
+  kind: "skipped";
+  count: number;
+  oldLine: number;
+  newLine: number;
+}
+
+export type DiffRow = DiffLine | SkippedLines;
+
+export interface SpecDiff {
+  rows: DiffRow[];
+  added: number;
+  removed: number;
+  /** True when both texts are the same. */
+  identical: boolean;
+}
+
+/**
+ * Line diff of two texts (the `diff` package's diffLines), with line numbers on both
+ * sides; unchanged runs longer than 2 x `context` + 1 lines are folded into one
+ * `skipped` row that keeps `context` lines either side of each change.
+ */
+export function diffText(oldText: string, newText: string, context = 3): SpecDiff {
+  const lines: DiffLine[] = [];
+  let o = 1;
+  let n = 1;
+  let added = 0;
+  let removed = 0;
+  for (const change of diffLines(oldText, newText)) {
+    const parts = splitLines(change.value);
+    for (const text of parts) {
+      if (change.added) {
+        lines.push({ kind: "added", text, newLine: n++ });
+        added++;
+      } else if (change.removed) {
+        lines.push({ kind: "removed", text, oldLine: o++ });
+        removed++;
+      } else {
+        lines.push({ kind: "same", text, oldLine: o++, newLine: n++ });
+      }
+    }
+  }
+  return { rows: fold(lines, Math.max(0, context)), added, removed, identical: added === 0 && removed === 0 };
+}
+
+/** The canonical pretty-printed texts of two specs, diffed line by line. */
+export function diffSpecs(oldSpec: unknown, newSpec: unknown, context = 3): SpecDiff & { oldText: string; newText: string } {
+  const oldText = canonicalPretty(oldSpec);
+  const newText = canonicalPretty(newSpec);
+  return { ...diffText(oldText, newText, context), oldText, newText };
+}
+
+function splitLines(value: string): string[] {
+  const parts = value.split("\n");
+  // A change's value ends with the newline of its last line: no extra empty line for it.
+  if (parts.length > 1 && parts[parts.length - 1] === "") parts.pop();
+  return parts;
+}
+
+function fold(lines: DiffLine[], context: number): DiffRow[] {
+  const rows: DiffRow[] = [];
+  let i = 0;
+  while (i < lines.length) {
+    const line = lines[i];
+    if (line === undefined) break;
+    if (line.kind !== "same") {
+      rows.push(line);
+      i++;
+      continue;
+    }
+    let j = i;
+    while (j < lines.length && lines[j]?.kind === "same") j++;
+    const run = lines.slice(i, j);
+    const atStart = i === 0;
+    const atEnd = j === lines.length;
+    const keepHead = atStart ? 0 : context;
+    const keepTail = atEnd ? 0 : context;
+    if (run.length > keepHead + keepTail + 1) {
+      rows.push(...run.slice(0, keepHead));
+      const first = run[keepHead];
+      if (first !== undefined) {
+        rows.push({
+          kind: "skipped",
+          count: run.length - keepHead - keepTail,
+          oldLine: first.oldLine ?? 0,
+          newLine: first.newLine ?? 0,
+        });
+      }
+      rows.push(...run.slice(run.length - keepTail));
+    } else {
+      rows.push(...run);
+    }
+    i = j;
+  }
+  return rows;
+}
+
+// ---------------------------------------------------------------------------
+// Verdict diff
+// ---------------------------------------------------------------------------
+
+/** The parts of a report the verdict diff reads; null when the version has no report yet. */
+export interface ReportLike {
+  verdict: Verdict;
+  claims: Pick<ClaimResult, "id" | "kind" | "status" | "deviation" | "message">[];
+}
+
+export interface ClaimSide {
+  kind: string;
+  status: ClaimStatus;
+  deviation?: number;
+  message: string;
+}
+
+export type ClaimChange =
+  | { id: string; change: "added"; to: ClaimSide }
+  | { id: string; change: "removed"; from: ClaimSide }
+  | {
+      id: string;
+      change: "changed";
+      from: ClaimSide;
+      to: ClaimSide;
+      statusChanged: boolean;
+      deviationChanged: boolean;
+      kindChanged: boolean;
+    }
+  | { id: string; change: "unchanged"; from: ClaimSide; to: ClaimSide };
+
+export interface VerdictDiff {
+  from: Verdict | null;
+  to: Verdict | null;
+  verdictChanged: boolean;
+  /** Every claim of either report: the newer report's order first, then claims only the older had. */
+  claims: ClaimChange[];
+  counts: { added: number; removed: number; changed: number; unchanged: number };
+}
+
+/**
+ * Two deviations are the same when they differ by at most this much relative to the larger
+ * (or absolutely, below 1): the engine is deterministic, so any larger difference comes
+ * from a changed spec, while this margin keeps last-digit noise out of the view.
+ */
+export const DEVIATION_EPSILON = 1e-12;
+
+export function sameDeviation(a: number | undefined, b: number | undefined): boolean {
+  if (a === undefined || b === undefined) return a === b;
+  if (Number.isNaN(a) || Number.isNaN(b)) return Number.isNaN(a) && Number.isNaN(b);
+  if (a === b) return true; // also equal infinities
+  return Math.abs(a - b) <= DEVIATION_EPSILON * Math.max(1, Math.abs(a), Math.abs(b));
+}
+
+function side(c: ReportLike["claims"][number]): ClaimSide {
+  const s: ClaimSide = { kind: c.kind, status: c.status, message: c.message };
+  if (c.deviation !== undefined) s.deviation = c.deviation;
+  return s;
+}
+
+/** Claims matched by id; a report that is missing (not yet verified) counts as having no claims. */
+export function diffVerdicts(from: ReportLike | null, to: ReportLike | null): VerdictDiff {
+  const before = new Map((from?.claims ?? []).map((c) => [c.id, c]));
+  const after = new Map((to?.claims ?? []).map((c) => [c.id, c]));
+  const claims: ClaimChange[] = [];
+  for (const [id, t] of after) {
+    const f = before.get(id);
+    if (f === undefined) {
+      claims.push({ id, change: "added", to: side(t) });
+      continue;
+    }
+    const statusChanged = f.status !== t.status;
+    const deviationChanged = !sameDeviation(f.deviation, t.deviation);
+    const kindChanged = f.kind !== t.kind;
+    if (statusChanged || deviationChanged || kindChanged) {
+      claims.push({ id, change: "changed", from: side(f), to: side(t), statusChanged, deviationChanged, kindChanged });
+    } else {
+      claims.push({ id, change: "unchanged", from: side(f), to: side(t) });
+    }
+  }
+  for (const [id, f] of before) {
+    if (!after.has(id)) claims.push({ id, change: "removed", from: side(f) });
+  }
+  const counts = { added: 0, removed: 0, changed: 0, unchanged: 0 };
+  for (const c of claims) counts[c.change]++;
+  const fromVerdict = from?.verdict ?? null;
+  const toVerdict = to?.verdict ?? null;
+  return { from: fromVerdict, to: toVerdict, verdictChanged: fromVerdict !== toVerdict, claims, counts };
+}
