@@ -1,0 +1,136 @@
+/** Every isolated rest point the engine found, with its support, linear stability and equilibrium tests. */
+import type { GameSpec, RestPointReport } from "@/lib/engine/types";
+import { formatEigenvalues, formatNumber, isBimatrixState, STABILITY_LABELS, stateLabels } from "./format";
+
+export interface RestPointsTableProps {
+  restPoints: readonly RestPointReport[];
+  game?: GameSpec;
+}
+
+function YesNo({ value }: { value: boolean | null }) {
+  if (value === null) {
+    return <span className="text-neutral-600 dark:text-neutral-400" title="ESS is defined for symmetric games only">n/a</span>;
+  }
+  return value ? (
+    <span className="inline-flex items-center gap-1">
+      <svg viewBox="0 0 12 12" className="size-3" fill="none" stroke="currentColor" strokeWidth="1.8" aria-hidden="true">
+        <path d="M2.5 6.3l2.2 2.2 4.8-5" />
+      </svg>
+      yes
+    </span>
+  ) : (
+    <span className="inline-flex items-center gap-1 text-neutral-600 dark:text-neutral-400">
+      <svg viewBox="0 0 12 12" className="size-3" fill="none" stroke="currentColor" strokeWidth="1.8" aria-hidden="true">
+        <path d="M3 6h6" />
+      </svg>
+      no
+    </span>
+  );
+}
+
+function StateCell({ state, game }: { state: RestPointReport["state"]; game?: GameSpec }) {
+  const labels = stateLabels(game, state);
+  const pops = isBimatrixState(state) ? state : [state];
+  const popNames = game?.kind === "bimatrix" ? game.populations.map((p) => p.name) : ["x", "y"];
+  return (
+    <span className="font-mono text-xs tabular-nums">
+      {pops.map((shares, p) => (
+        <span key={p} className="block">
+          {pops.length > 1 && <span className="text-neutral-600 dark:text-neutral-400">{popNames[p]}: </span>}
+          ({shares.map((x, i) => (
+            <span key={i} title={`${labels[p]?.[i] ?? `s${i + 1}`} = ${x}`}>
+              {i > 0 && ", "}
+              {formatNumber(x)}
+            </span>
+          ))})
+        </span>
+      ))}
+    </span>
+  );
+}
+
+function StabilityWord({ stability }: { stability: RestPointReport["stability"] }) {
+  const icon =
+    stability === "asymptotically-stable" ? (
+      // An arrow pointing in: trajectories approach.
+      <path d="M2 6h6M6 3.5L8.5 6 6 8.5M10.5 2v8" />
+    ) : stability === "unstable" ? (
+      // An arrow pointing out: trajectories leave.
+      <path d="M4 6h6M8 3.5L10.5 6 8 8.5M1.5 2v8" />
+    ) : (
+      // A level line: linearisation cannot decide.
+      <path d="M1.5 6h9M1.5 3.5h9M1.5 8.5h9" strokeDasharray="1.5 1.5" />
+    );
+  return (
+    <span className="inline-flex items-center gap-1.5 whitespace-nowrap">
+      <svg viewBox="0 0 12 12" className="size-3.5" fill="none" stroke="currentColor" strokeWidth="1.5" aria-hidden="true">
+        {icon}
+      </svg>
+      {STABILITY_LABELS[stability] ?? stability}
+    </span>
+  );
+}
+
+export function RestPointsTable({ restPoints, game }: RestPointsTableProps) {
+  if (restPoints.length === 0) {
+    return <p className="text-sm text-neutral-600 dark:text-neutral-400">The engine found no isolated rest point.</p>;
+  }
+  const order =
+    game?.kind === "symmetric"
+      ? game.strategies.join(", ")
+      : game?.kind === "bimatrix"
+        ? game.populations.map((p) => `${p.name}: ${p.strategies.join(", ")}`).join("; ")
+        : undefined;
+  return (
+    <div className="overflow-x-auto">
+      <table className="w-full border-collapse text-left text-sm" data-testid="rest-points-table">
+        <caption className="sr-only">Rest points of the replicator dynamics</caption>
+        <thead>
+          <tr className="border-b border-neutral-300 text-xs uppercase tracking-wide text-neutral-600 dark:border-neutral-700 dark:text-neutral-400">
+            <th scope="col" className="py-2 pr-4 font-semibold">
+              State
+              {order !== undefined && (
+                <span className="block font-normal normal-case tracking-normal">({order})</span>
+              )}
+            </th>
+            <th scope="col" className="py-2 pr-4 font-semibold">Support</th>
+            <th scope="col" className="py-2 pr-4 font-semibold">Stability</th>
+            <th scope="col" className="py-2 pr-4 font-semibold">Eigenvalues</th>
+            <th scope="col" className="py-2 pr-4 font-semibold">Nash</th>
+            <th scope="col" className="py-2 font-semibold">ESS</th>
+          </tr>
+        </thead>
+        <tbody>
+          {restPoints.map((rp, i) => (
+            <tr key={i} className="border-b border-neutral-200 align-top last:border-0 dark:border-neutral-800">
+              <td className="py-2 pr-4">
+                <StateCell state={rp.state} game={game} />
+              </td>
+              <td className="py-2 pr-4">{rp.support.join(", ")}</td>
+              <td className="py-2 pr-4">
+                <StabilityWord stability={rp.stability} />
+              </td>
+              <td className="py-2 pr-4 font-mono text-xs tabular-nums">
+                {rp.eigenvalues.length === 0 ? (
+                  <span className="text-neutral-500">—</span>
+                ) : (
+                  formatEigenvalues(rp.eigenvalues).map((e, j) => (
+                    <span key={j} className="block whitespace-nowrap">
+                      {e}
+                    </span>
+                  ))
+                )}
+              </td>
+              <td className="py-2 pr-4">
+                <YesNo value={rp.nash} />
+              </td>
+              <td className="py-2">
+                <YesNo value={rp.ess} />
+              </td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}
