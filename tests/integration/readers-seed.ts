@@ -1,0 +1,66 @@
+/**
+ * Rows for the readers' search tests, written straight into the tables so each test controls
+ * exactly which models are public, what their newest version says and what verdict it has.
+ */
+import { createHash, randomUUID } from "node:crypto";
+import { db } from "@/db/client";
+import { model, modelAuthor, report, user, version } from "@/db/schema";
+import type { Verdict } from "@/lib/engine/types";
+
+export async function seedUser(): Promise<string> {
+  const id = randomUUID();
+  await db.insert(user).values({ id, name: "Seed Author", email: `${id}@example.test`, emailVerified: true });
+  return id;
+}
+
+export interface SeedModel {
+  slug: string;
+  title: string;
+  visibility?: "public" | "private";
+  authors?: string[];
+  doi?: string;
+  versions: { title?: string; strategies: string[]; dynamics?: string; verdict?: Verdict; createdAt?: Date }[];
+}
+
+export async function seedModel(ownerId: string, m: SeedModel): Promise<string> {
+  const modelId = randomUUID();
+  await db.insert(model).values({
+    id: modelId,
+    slug: m.slug,
+    ownerId,
+    title: m.title,
+    summary: `About ${m.title}`,
+    doi: m.doi ?? null,
+    visibility: m.visibility ?? "public",
+  });
+  for (const [i, name] of (m.authors ?? []).entries()) {
+    await db.insert(modelAuthor).values({ modelId, position: i, name });
+  }
+  for (const [i, v] of m.versions.entries()) {
+    const specText = JSON.stringify({ title: v.title ?? m.title, n: i, slug: m.slug });
+    const sha = createHash("sha256").update(specText).digest("hex");
+    const versionId = randomUUID();
+    await db.insert(version).values({
+      id: versionId,
+      modelId,
+      number: i + 1,
+      specSha256: sha,
+      specText,
+      title: v.title ?? m.title,
+      strategyNames: v.strategies.join("\n"),
+      dynamicsKind: v.dynamics ?? "replicator",
+      uploadedBy: ownerId,
+      createdAt: v.createdAt ?? new Date(Date.UTC(2026, 0, 1) + i * 1000),
+    });
+    if (v.verdict !== undefined) {
+      await db.insert(report).values({
+        versionId,
+        verdict: v.verdict,
+        engineVersion: "0.0.0-test",
+        specSha256: sha,
+        reportJson: "{}",
+      });
+    }
+  }
+  return modelId;
+}
