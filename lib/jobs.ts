@@ -1,0 +1,236 @@
+/**
+ * The durable verification queue on the `job` table. Several worker processes may share one
+ * libSQL database: a job is handed to exactly one of them by a single UPDATE (claimNext), and
+ * the holder keeps a lease that it extends while it works (heartbeat). A worker that dies leaves
+ * its lease to expire, after which another worker claims the job again.
+ *
+ * `attempts` counts claims, so a job whose worker keeps dying (a spec that crashes the process)
+ * stops after `maxAttempts` like one whose runs throw.
+ */
+import "server-only";
+import { and, asc, desc, eq, lt, or, sql, gte, lte } from "drizzle-orm";
+import { db } from "@/db/client";
+import { job } from "@/db/schema";
+import type { Report } from "@/lib/engine/types";
+import { recordAudit, type Executor } from "@/lib/audit";
+import { storeReport } from "@/lib/reports";
+import type { JobRow } from "@/lib/types/jobs";
+
+export { toJobStatus, type JobRow } from "@/lib/types/jobs";
+
+export const DEFAULT_MAX_ATTEMPTS = 3;
+
+/** Sentence kept as lastError when a job is taken over from a worker whose lease ran out. */
+export const LEASE_EXPIRED_MESSAGE =
+  "The previous attempt stopped without finishing (its worker stopped answering), so the run was started again.";
+
+export function leaseExpiredTooOftenMessage(attempts: number): string {
+  return `The verification was started ${attempts} times and its worker stopped answering each time; it was not retried again.`;
+}
+
+/** Back-off before the next attempt after a failed one: 2 s, then 8 s (common practice: exponential). */
+export function defaultBackoffMs(attempts: number): number {
+  return 2000 * 4 ** Math.max(0, attempts - 1);
+}
+
+/** Queues a verification of `versionId`; pass the caller's transaction to commit both together. */
+export async function enqueueJob(
+  versionId: string,
+  options: { exec?: Executor; maxAttempts?: number; now?: number } = {},
+): Promise<JobRow> {
+  const exec = options.exec ?? db;
+  const now = new Date(options.now ?? Date.now());
+  const rows = await exec
+    .insert(job)
+    .values({
+      versionId,
+      maxAttempts: options.maxAttempts ?? DEFAULT_MAX_ATTEMPTS,
+      runAfter: now,
+      createdAt: now,
+      updatedAt: now,
+    })
+    .returning();
+  const row = rows[0];
+  if (row === undefined) throw new Error("enqueueJob: the insert returned no row");
+  return row;
+}
+
+/**
+ * Marks as failed every job whose lease expired after its last allowed attempt (its worker
+ * died each time). Returns those jobs so the caller can tell their authors.
+ */
+export async function failAbandonedJobs(now: number = Date.now()): Promise<JobRow[]> {
+  const at = new Date(now);
+  const abandoned = and(eq(job.state, "running"), lt(job.leaseExpiresAt, at), gte(job.attempts, job.maxAttempts));
+  const candidates = await db.select().from(job).where(abandoned);
+  const failed: JobRow[] = [];
+  for (const candidate of candidates) {
+    // The guard is repeated so a job another process failed or finished meanwhile is left alone.
+    const rows = await db
+      .update(job)
+      .set({
+        state: "failed",
+        lastError: leaseExpiredTooOftenMessage(candidate.attempts),
+        leaseOwner: null,
+        leaseExpiresAt: null,
+        finishedAt: at,
+        updatedAt: at,
+      })
+      .where(and(eq(job.id, candidate.id), abandoned))
+      .returning();
+    const row = rows[0];
+    if (row === undefined) continue;
+    failed.push(row);
+    await recordAudit({
+      actorId: null,
+      action: "job.failed",
+      versionId: row.versionId,
+      detail: { jobId: row.id, attempts: row.attempts, reason: "lease expired" },
+    });
+  }
+  return failed;
+}
+
+/**
+ * Hands the oldest claimable job to `workerId` with a lease of `leaseMs`, or returns null.
+ * Claimable: queued and due (run_after <= now), or running under an expired lease with
+ * attempts left. One UPDATE ... WHERE id = (SELECT ...) RETURNING: SQLite runs it under the
+ * database's write lock, so two processes can never both get the same job.
+ */
+export async function claimNext(workerId: string, leaseMs: number, now: number = Date.now()): Promise<JobRow | null> {
+  const at = new Date(now);
+  const claimable = or(
+    and(eq(job.state, "queued"), lte(job.runAfter, at)),
+    and(eq(job.state, "running"), lt(job.leaseExpiresAt, at), lt(job.attempts, job.maxAttempts)),
+  );
+  const next = db.select({ id: job.id }).from(job).where(claimable).orderBy(asc(job.runAfter), asc(job.createdAt), asc(job.id)).limit(1);
+  const rows = await db
+    .update(job)
+    .set({
+      state: "running",
+      attempts: sql`${job.attempts} + 1`,
+      leaseOwner: workerId,
+      leaseExpiresAt: new Date(now + leaseMs),
+      // A take-over says why the run started again; a fresh claim keeps what a failed attempt said.
+      lastError: sql`CASE WHEN ${job.state} = 'running' THEN ${LEASE_EXPIRED_MESSAGE} ELSE ${job.lastError} END`,
+      startedAt: at,
+      updatedAt: at,
+    })
+    .where(and(sql`${job.id} = (${next})`, claimable))
+    .returning();
+  return rows[0] ?? null;
+}
+
+/** Extends the lease; false when `workerId` no longer holds the job (it expired and was taken over). */
+export async function heartbeat(jobId: string, workerId: string, leaseMs: number, now: number = Date.now()): Promise<boolean> {
+  const rows = await db
+    .update(job)
+    .set({ leaseExpiresAt: new Date(now + leaseMs), updatedAt: new Date(now) })
+    .where(and(eq(job.id, jobId), eq(job.leaseOwner, workerId), eq(job.state, "running")))
+    .returning({ id: job.id });
+  return rows.length === 1;
+}
+
+/**
+ * Stores the report (whole and per claim) and marks the job finished, in one transaction.
+ * Returns false, storing nothing, when `workerId` lost the lease meanwhile.
+ */
+export async function completeJob(
+  jobId: string,
+  workerId: string,
+  report: Report,
+  durationMs: number,
+  now: number = Date.now(),
+): Promise<boolean> {
+  return db.transaction(async (tx) => {
+    const at = new Date(now);
+    const rows = await tx
+      .update(job)
+      .set({ state: "finished", leaseOwner: null, leaseExpiresAt: null, finishedAt: at, updatedAt: at })
+      .where(and(eq(job.id, jobId), eq(job.leaseOwner, workerId), eq(job.state, "running")))
+      .returning();
+    const row = rows[0];
+    if (row === undefined) return false;
+    await storeReport(tx, row.versionId, report, durationMs);
+    return true;
+  });
+}
+
+export type FailOutcome = "retry" | "failed" | "lost";
+
+/**
+ * Records a failed attempt: back to the queue after a back-off while attempts remain, else
+ * `failed` with `message` kept as lastError for the author. "lost" when the lease was gone.
+ */
+export async function failJob(
+  jobId: string,
+  workerId: string,
+  message: string,
+  options: { now?: number; backoffMs?: (attempts: number) => number } = {},
+): Promise<FailOutcome> {
+  const now = options.now ?? Date.now();
+  const backoff = options.backoffMs ?? defaultBackoffMs;
+  return db.transaction(async (tx) => {
+    const current = await tx
+      .select()
+      .from(job)
+      .where(and(eq(job.id, jobId), eq(job.leaseOwner, workerId), eq(job.state, "running")));
+    const row = current[0];
+    if (row === undefined) return "lost";
+    const at = new Date(now);
+    const final = row.attempts >= row.maxAttempts;
+    await tx
+      .update(job)
+      .set(
+        final
+          ? { state: "failed", lastError: message, leaseOwner: null, leaseExpiresAt: null, finishedAt: at, updatedAt: at }
+          : {
+              state: "queued",
+              lastError: message,
+              leaseOwner: null,
+              leaseExpiresAt: null,
+              runAfter: new Date(now + backoff(row.attempts)),
+              updatedAt: at,
+            },
+      )
+      .where(eq(job.id, jobId));
+    if (final) {
+      await recordAudit(
+        { actorId: null, action: "job.failed", versionId: row.versionId, detail: { jobId, attempts: row.attempts, reason: message } },
+        tx,
+      );
+    }
+    return final ? "failed" : "retry";
+  });
+}
+
+/**
+ * Gives a job back untouched (a worker shutting down cleanly before it finished): queued at
+ * once, and the claim does not count as an attempt.
+ */
+export async function releaseJob(jobId: string, workerId: string, now: number = Date.now()): Promise<boolean> {
+  const rows = await db
+    .update(job)
+    .set({
+      state: "queued",
+      attempts: sql`max(${job.attempts} - 1, 0)`,
+      leaseOwner: null,
+      leaseExpiresAt: null,
+      runAfter: new Date(now),
+      updatedAt: new Date(now),
+    })
+    .where(and(eq(job.id, jobId), eq(job.leaseOwner, workerId), eq(job.state, "running")))
+    .returning({ id: job.id });
+  return rows.length === 1;
+}
+
+export async function getJob(jobId: string): Promise<JobRow | null> {
+  const rows = await db.select().from(job).where(eq(job.id, jobId));
+  return rows[0] ?? null;
+}
+
+/** The newest job of a version (a version normally has exactly one). */
+export async function latestJobForVersion(versionId: string, exec: Executor = db): Promise<JobRow | null> {
+  const rows = await exec.select().from(job).where(eq(job.versionId, versionId)).orderBy(desc(job.createdAt)).limit(1);
+  return rows[0] ?? null;
+}
