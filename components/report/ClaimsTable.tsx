@@ -14,14 +14,14 @@ export interface ClaimsTableProps {
 export function ClaimsTable({ claims, specClaims, caption = "Claims" }: ClaimsTableProps) {
   const notes = new Map((specClaims ?? []).map((c) => [c.id, c.note]));
   if (claims.length === 0) {
-    return <p className="text-sm text-neutral-600 dark:text-neutral-400">No claim was checked.</p>;
+    return <p className="text-sm text-ink-faint">No claim was checked.</p>;
   }
   return (
     <div className="overflow-x-auto">
       <table className="w-full border-collapse text-left text-sm" data-testid="claims-table">
         <caption className="sr-only">{caption}</caption>
         <thead>
-          <tr className="border-b border-neutral-300 text-xs uppercase tracking-wide text-neutral-600 dark:border-neutral-700 dark:text-neutral-400">
+          <tr className="border-b border-line-strong text-xs uppercase tracking-wide text-ink-faint">
             <th scope="col" className="py-2 pr-4 font-semibold">Claim</th>
             <th scope="col" className="py-2 pr-4 font-semibold">Kind</th>
             <th scope="col" className="py-2 pr-4 font-semibold">Status</th>
@@ -37,7 +37,7 @@ export function ClaimsTable({ claims, specClaims, caption = "Claims" }: ClaimsTa
                 key={c.id}
                 id={`claim-${c.id}`}
                 data-status={c.status}
-                className="border-b border-neutral-200 align-top last:border-0 dark:border-neutral-800"
+                className="border-b border-line align-top last:border-0"
               >
                 <th scope="row" className="py-2 pr-4 font-mono text-xs font-normal break-all">
                   {c.id}
@@ -48,12 +48,12 @@ export function ClaimsTable({ claims, specClaims, caption = "Claims" }: ClaimsTa
                 </td>
                 <td className="py-2 pr-4 whitespace-nowrap">
                   {c.deviation === undefined ? (
-                    <span className="text-neutral-500" aria-label="no deviation">—</span>
+                    <span className="text-ink-faint" aria-label="no deviation">—</span>
                   ) : (
                     <Sci value={c.deviation} />
                   )}
                   {c.tolerance !== undefined && (
-                    <span className="block text-xs text-neutral-600 dark:text-neutral-400">
+                    <span className="block text-xs text-ink-faint">
                       tolerance <Sci value={c.tolerance} digits={1} />
                     </span>
                   )}
@@ -61,7 +61,7 @@ export function ClaimsTable({ claims, specClaims, caption = "Claims" }: ClaimsTa
                 <td className="py-2">
                   <span>{c.message}</span>
                   {note !== undefined && note !== "" && (
-                    <span className="mt-1 block text-xs text-neutral-600 italic dark:text-neutral-400">
+                    <span className="mt-1 block text-xs text-ink-faint italic">
                       Author&rsquo;s note: {note}
                     </span>
                   )}

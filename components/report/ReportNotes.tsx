@@ -12,7 +12,7 @@ export function ReportNotes({ notes }: { notes: readonly string[] | undefined })
       <h3 id="report-notes-heading" className="mb-2 text-base font-semibold">
         What was checked and how
       </h3>
-      <ul className="list-disc space-y-1 pl-5 text-sm text-neutral-700 dark:text-neutral-300">
+      <ul className="list-disc space-y-1 pl-5 text-sm text-ink-soft">
         {list.map((n, i) => (
           <li key={i}>{n}</li>
         ))}

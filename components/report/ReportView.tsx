@@ -54,7 +54,7 @@ export function ReportView({ report, game, specClaims, figures }: ReportViewProp
       {report.experiments.length > 0 && (
         <Section id="report-experiments" title="Experiments">
           {failedRuns.length > 0 && (
-            <ul className="space-y-1 text-sm text-amber-800 dark:text-amber-300">
+            <ul className="space-y-1 text-sm text-inconclusive">
               {failedRuns.map((e) => (
                 <li key={e.id}>
                   <code className="font-mono text-xs">{e.id}</code> stopped early: {e.error}
@@ -68,7 +68,7 @@ export function ReportView({ report, game, specClaims, figures }: ReportViewProp
 
       <ReportNotes notes={report.notes} />
 
-      <footer className="border-t border-neutral-200 pt-3 text-xs text-neutral-600 dark:border-neutral-800 dark:text-neutral-400">
+      <footer className="border-t border-line pt-3 text-xs text-ink-faint">
         Engine {report.engine.version} · specification SHA-256{" "}
         <code className="font-mono break-all" data-testid="spec-sha">{report.specSha256}</code>
       </footer>

@@ -9,7 +9,7 @@ export interface RestPointsTableProps {
 
 function YesNo({ value }: { value: boolean | null }) {
   if (value === null) {
-    return <span className="text-neutral-600 dark:text-neutral-400" title="ESS is defined for symmetric games only">n/a</span>;
+    return <span className="text-ink-faint" title="ESS is defined for symmetric games only">n/a</span>;
   }
   return value ? (
     <span className="inline-flex items-center gap-1">
@@ -19,7 +19,7 @@ function YesNo({ value }: { value: boolean | null }) {
       yes
     </span>
   ) : (
-    <span className="inline-flex items-center gap-1 text-neutral-600 dark:text-neutral-400">
+    <span className="inline-flex items-center gap-1 text-ink-faint">
       <svg viewBox="0 0 12 12" className="size-3" fill="none" stroke="currentColor" strokeWidth="1.8" aria-hidden="true">
         <path d="M3 6h6" />
       </svg>
@@ -36,7 +36,7 @@ function StateCell({ state, game }: { state: RestPointReport["state"]; game?: Ga
     <span className="font-mono text-xs tabular-nums">
       {pops.map((shares, p) => (
         <span key={p} className="block">
-          {pops.length > 1 && <span className="text-neutral-600 dark:text-neutral-400">{popNames[p]}: </span>}
+          {pops.length > 1 && <span className="text-ink-faint">{popNames[p]}: </span>}
           ({shares.map((x, i) => (
             <span key={i} title={`${labels[p]?.[i] ?? `s${i + 1}`} = ${x}`}>
               {i > 0 && ", "}
@@ -73,7 +73,7 @@ function StabilityWord({ stability }: { stability: RestPointReport["stability"] 
 
 export function RestPointsTable({ restPoints, game }: RestPointsTableProps) {
   if (restPoints.length === 0) {
-    return <p className="text-sm text-neutral-600 dark:text-neutral-400">The engine found no isolated rest point.</p>;
+    return <p className="text-sm text-ink-faint">The engine found no isolated rest point.</p>;
   }
   const order =
     game?.kind === "symmetric"
@@ -86,7 +86,7 @@ export function RestPointsTable({ restPoints, game }: RestPointsTableProps) {
       <table className="w-full border-collapse text-left text-sm" data-testid="rest-points-table">
         <caption className="sr-only">Rest points of the replicator dynamics</caption>
         <thead>
-          <tr className="border-b border-neutral-300 text-xs uppercase tracking-wide text-neutral-600 dark:border-neutral-700 dark:text-neutral-400">
+          <tr className="border-b border-line-strong text-xs uppercase tracking-wide text-ink-faint">
             <th scope="col" className="py-2 pr-4 font-semibold">
               State
               {order !== undefined && (
@@ -102,7 +102,7 @@ export function RestPointsTable({ restPoints, game }: RestPointsTableProps) {
         </thead>
         <tbody>
           {restPoints.map((rp, i) => (
-            <tr key={i} className="border-b border-neutral-200 align-top last:border-0 dark:border-neutral-800">
+            <tr key={i} className="border-b border-line align-top last:border-0">
               <td className="py-2 pr-4">
                 <StateCell state={rp.state} game={game} />
               </td>
@@ -112,7 +112,7 @@ export function RestPointsTable({ restPoints, game }: RestPointsTableProps) {
               </td>
               <td className="py-2 pr-4 font-mono text-xs tabular-nums">
                 {rp.eigenvalues.length === 0 ? (
-                  <span className="text-neutral-500">—</span>
+                  <span className="text-ink-faint">—</span>
                 ) : (
                   formatEigenvalues(rp.eigenvalues).map((e, j) => (
                     <span key={j} className="block whitespace-nowrap">

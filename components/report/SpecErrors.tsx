@@ -11,12 +11,12 @@ export function SpecErrors({ errors, title = "Problems in the specification" }: 
       </h3>
       <ol className="space-y-1.5 text-sm">
         {errors.map((e, i) => (
-          <li key={i} className="flex flex-wrap items-baseline gap-x-2 border-l-2 border-fuchsia-700/50 pl-3 dark:border-fuchsia-400/50">
-            <code className="rounded bg-neutral-100 px-1 py-0.5 font-mono text-xs break-all dark:bg-neutral-800">
+          <li key={i} className="flex flex-wrap items-baseline gap-x-2 border-l-2 border-invalid pl-3">
+            <code className="rounded bg-sunken px-1 py-0.5 font-mono text-xs break-all">
               {pointerText(e.path)}
             </code>
             {e.line !== undefined && (
-              <span className="text-xs text-neutral-600 dark:text-neutral-400">line {e.line}</span>
+              <span className="text-xs text-ink-faint">line {e.line}</span>
             )}
             <span className="basis-full sm:basis-auto">{e.message}</span>
           </li>

@@ -13,19 +13,19 @@ export const OUTCOME_WORDS: Record<Outcome, string> = {
   invalid: "Invalid",
 };
 
-/** Text colour per outcome, light and dark; the paired icon and word make it readable without colour. */
+/** Text colour per outcome (the palette in app/globals.css switches light/dark); icon and word carry the meaning. */
 export const OUTCOME_TEXT: Record<Outcome, string> = {
-  confirmed: "text-teal-800 dark:text-teal-300",
-  contradicted: "text-red-800 dark:text-red-300",
-  inconclusive: "text-amber-800 dark:text-amber-300",
-  invalid: "text-fuchsia-800 dark:text-fuchsia-300",
+  confirmed: "text-confirmed",
+  contradicted: "text-contradicted",
+  inconclusive: "text-inconclusive",
+  invalid: "text-invalid",
 };
 
 export const OUTCOME_SURFACE: Record<Outcome, string> = {
-  confirmed: "border-teal-700/40 bg-teal-50 dark:border-teal-400/40 dark:bg-teal-950/40",
-  contradicted: "border-red-700/40 bg-red-50 dark:border-red-400/40 dark:bg-red-950/40",
-  inconclusive: "border-amber-700/40 bg-amber-50 dark:border-amber-400/40 dark:bg-amber-950/40",
-  invalid: "border-fuchsia-700/40 bg-fuchsia-50 dark:border-fuchsia-400/40 dark:bg-fuchsia-950/40",
+  confirmed: "border-confirmed/40 bg-confirmed-wash",
+  contradicted: "border-contradicted/40 bg-contradicted-wash",
+  inconclusive: "border-inconclusive/40 bg-inconclusive-wash",
+  invalid: "border-invalid/40 bg-invalid-wash",
 };
 
 export function OutcomeIcon({ outcome, className = "size-4" }: { outcome: Outcome; className?: string }) {

@@ -32,9 +32,9 @@ export function VerdictBanner({ verdict, claims }: { verdict: Verdict; claims: r
         <p className={`text-lg font-semibold ${OUTCOME_TEXT[verdict]}`}>
           {OUTCOME_WORDS[verdict]}
         </p>
-        <p className="text-sm text-neutral-800 dark:text-neutral-200">{EXPLANATION[verdict]}</p>
+        <p className="text-sm text-ink">{EXPLANATION[verdict]}</p>
         {parts.length > 0 && (
-          <p className="mt-1 text-sm text-neutral-700 dark:text-neutral-300">
+          <p className="mt-1 text-sm text-ink-soft">
             {claims.length} {claims.length === 1 ? "claim" : "claims"}: {parts.join(", ")}.
           </p>
         )}
