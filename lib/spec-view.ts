@@ -1,0 +1,237 @@
+/**
+ * A readable view of a model spec: the game as a payoff table with every expression evaluated
+ * at the parameter values, and the dynamics as a formula in a small markup of our own (text,
+ * symbols with subscripts and superscripts) that a component renders as HTML text and that
+ * also reads as plain text. Pure: no React, no database.
+ */
+import { evaluateEntry, PayoffError } from "@/lib/engine/payoffs";
+import type { DynamicsSpec, GameSpec, Parameters, PayoffEntry } from "@/lib/engine/types";
+
+// ---------------------------------------------------------------------------
+// Formula markup
+// ---------------------------------------------------------------------------
+
+/** Plain text (operators, words) or a symbol: `name` in italics, optional dot above (time derivative), sub- and superscript. */
+export type FormulaPart = { text: string } | { sym: string; sub?: string; sup?: string; dot?: boolean };
+export type Formula = FormulaPart[];
+
+const t = (text: string): FormulaPart => ({ text });
+const s = (sym: string, sub?: string, extra: { sup?: string; dot?: boolean } = {}): FormulaPart => ({ sym, sub, ...extra });
+
+/** Plain-text reading of a formula: "dx_i/dt = x_i (f_i − φ)". */
+export function formulaText(f: Formula): string {
+  return f
+    .map((p) => {
+      if ("text" in p) return p.text;
+      const base = p.dot ? `d${p.sym}${p.sub ? `_${p.sub}` : ""}/dt` : `${p.sym}${p.sub ? `_${p.sub}` : ""}`;
+      return p.sup ? `${base}^${p.sup}` : base;
+    })
+    .join("");
+}
+
+export interface DynamicsView {
+  kind: string;
+  /** A name in words, e.g. "Replicator dynamics". */
+  name: string;
+  /** The equations, one per line; the first is the law of motion. */
+  equations: Formula[];
+  /** What the symbols mean, one sentence each. */
+  where: string[];
+  /** The dynamics' own constants with their values. */
+  constants: { name: string; symbol: string; value: number }[];
+}
+
+const DYNAMICS_NAMES: Record<string, string> = {
+  replicator: "Replicator dynamics",
+  "replicator-mutator": "Replicator–mutator dynamics",
+  logit: "Logit dynamics",
+  "brown-von-neumann-nash": "Brown–von Neumann–Nash dynamics",
+  smith: "Smith dynamics",
+};
+
+/**
+ * The law of motion of the spec's dynamics (default replicator), written as in the
+ * specification contract; for two populations, each population's shares move by the same law
+ * with its payoffs against the other population's state.
+ */
+export function dynamicsView(dynamics: DynamicsSpec | undefined, game: GameSpec): DynamicsView {
+  const d: DynamicsSpec = dynamics ?? { kind: "replicator" };
+  const two = game.kind === "bimatrix";
+  const where: string[] = [];
+  if (two) {
+    const [p1, p2] = game.populations;
+    where.push(
+      `x is the state of ${p1.name} and y that of ${p2.name}; f_i = (A y)_i is the payoff to ${p1.name}'s strategy i against y, and g_j = (B x)_j that to ${p2.name}'s strategy j against x.`,
+      `The same law moves y, with g in place of f.`,
+    );
+  } else {
+    where.push("x_i is the share of strategy i; f_i = (A x)_i is its payoff against the population, with A the payoff table below.");
+  }
+  const phi: Formula = [s("φ"), t(" = "), t("Σ"), s("", "j"), t(" "), s("x", "j"), t(" "), s("f", "j")];
+  const phiWhere = "φ is the population's mean payoff.";
+  const xi = s("x", "i");
+  const dxi = s("x", "i", { dot: true });
+  switch (d.kind) {
+    case "replicator":
+      where.push(phiWhere);
+      return {
+        kind: d.kind,
+        name: DYNAMICS_NAMES[d.kind] ?? d.kind,
+        equations: [[dxi, t(" = "), xi, t(" ("), s("f", "i"), t(" − "), s("φ"), t(")")], phi],
+        where,
+        constants: [],
+      };
+    case "replicator-mutator":
+      where.push(phiWhere, "q_ji is the probability that an offspring of a j-strategist plays i.");
+      return {
+        kind: d.kind,
+        name: DYNAMICS_NAMES[d.kind] ?? d.kind,
+        equations: [
+          [dxi, t(" = "), t("Σ"), s("", "j"), t(" "), s("x", "j"), t(" "), s("f", "j"), t(" "), s("q", "ji"), t(" − "), xi, t(" "), s("φ")],
+          phi,
+          [s("q", "ii"), t(" = 1 − "), s("μ"), t(",  "), s("q", "ji"), t(" = "), s("μ"), t(" / (n − 1) for j ≠ i")],
+        ],
+        where,
+        constants: [{ name: "mutation rate", symbol: "μ", value: d.mutationRate }],
+      };
+    case "logit":
+      return {
+        kind: d.kind,
+        name: DYNAMICS_NAMES[d.kind] ?? d.kind,
+        equations: [
+          [dxi, t(" = exp("), s("f", "i"), t(" / "), s("η"), t(") / "), t("Σ"), s("", "j"), t(" exp("), s("f", "j"), t(" / "), s("η"), t(") − "), xi],
+        ],
+        where,
+        constants: [{ name: "noise", symbol: "η", value: d.noise }],
+      };
+    case "brown-von-neumann-nash":
+      where.push(phiWhere, "k_i is strategy i's excess payoff over the mean, where positive.");
+      return {
+        kind: d.kind,
+        name: DYNAMICS_NAMES[d.kind] ?? d.kind,
+        equations: [
+          [dxi, t(" = "), s("k", "i"), t(" − "), xi, t(" "), t("Σ"), s("", "j"), t(" "), s("k", "j")],
+          [s("k", "i"), t(" = max("), s("f", "i"), t(" − "), s("φ"), t(", 0)")],
+          phi,
+        ],
+        where,
+        constants: [],
+      };
+    case "smith":
+      where.push("[z]₊ = max(z, 0).");
+      return {
+        kind: d.kind,
+        name: DYNAMICS_NAMES[d.kind] ?? d.kind,
+        equations: [
+          [
+            dxi,
+            t(" = "),
+            t("Σ"),
+            s("", "j"),
+            t(" "),
+            s("x", "j"),
+            t(" ["),
+            s("f", "i"),
+            t(" − "),
+            s("f", "j"),
+            t("]₊ − "),
+            xi,
+            t(" "),
+            t("Σ"),
+            s("", "j"),
+            t(" ["),
+            s("f", "j"),
+            t(" − "),
+            s("f", "i"),
+            t("]₊"),
+          ],
+        ],
+        where,
+        constants: [],
+      };
+  }
+}
+
+// ---------------------------------------------------------------------------
+// Payoff table
+// ---------------------------------------------------------------------------
+
+export interface PayoffCell {
+  /** The entry as the author wrote it when it is an expression; null for a plain number. */
+  expression: string | null;
+  /** The evaluated payoff; null when it cannot be evaluated (then `error` says why). */
+  value: number | null;
+  error?: string;
+}
+
+export interface PayoffTableView {
+  kind: "symmetric" | "bimatrix";
+  /** Whose strategies label the rows and the columns. */
+  rowTitle: string;
+  columnTitle: string;
+  rows: string[];
+  columns: string[];
+  /**
+   * cells[i][j]: symmetric: one payoff, to row strategy i against column strategy j;
+   * bimatrix: two payoffs, to the row population's i and to the column population's j.
+   */
+  cells: PayoffCell[][][];
+  /** The parameter values used, sorted by name. */
+  parameters: { name: string; value: number }[];
+  /** A sentence on how to read the table. */
+  reading: string;
+}
+
+function cell(entry: PayoffEntry | undefined, path: string, params: Parameters, known: ReadonlySet<string>): PayoffCell {
+  if (entry === undefined) return { expression: null, value: null, error: "Missing payoff entry." };
+  const expression = typeof entry === "string" ? entry : null;
+  try {
+    return { expression, value: evaluateEntry(entry, path, params, known) };
+  } catch (e) {
+    return { expression, value: null, error: e instanceof PayoffError ? e.message : "This entry could not be evaluated." };
+  }
+}
+
+/**
+ * The payoff table with each entry evaluated at the spec's parameters overlaid with
+ * `overrides`. Entries that cannot be evaluated are kept with their error, so a reader sees
+ * what the author wrote even then.
+ */
+export function payoffTable(spec: { parameters?: Parameters; game: GameSpec }, overrides?: Parameters): PayoffTableView {
+  const params: Parameters = { ...(spec.parameters ?? {}), ...(overrides ?? {}) };
+  const known = new Set(Object.keys(params));
+  const parameters = [...known].sort().map((name) => ({ name, value: params[name] ?? Number.NaN }));
+  const game = spec.game;
+  if (game.kind === "symmetric") {
+    const n = game.strategies.length;
+    return {
+      kind: "symmetric",
+      rowTitle: "Strategy",
+      columnTitle: "Against",
+      rows: [...game.strategies],
+      columns: [...game.strategies],
+      cells: Array.from({ length: n }, (_, i) =>
+        Array.from({ length: n }, (_, j) => [cell(game.payoffs[i]?.[j], `/game/payoffs/${i}/${j}`, params, known)]),
+      ),
+      parameters,
+      reading: "Each entry is the payoff to the row's strategy when it meets the column's strategy.",
+    };
+  }
+  const [p1, p2] = game.populations;
+  const [P1, P2] = game.payoffs;
+  return {
+    kind: "bimatrix",
+    rowTitle: p1.name,
+    columnTitle: p2.name,
+    rows: [...p1.strategies],
+    columns: [...p2.strategies],
+    cells: p1.strategies.map((_, i) =>
+      p2.strategies.map((_, j) => [
+        cell(P1[i]?.[j], `/game/payoffs/0/${i}/${j}`, params, known),
+        cell(P2[j]?.[i], `/game/payoffs/1/${j}/${i}`, params, known),
+      ]),
+    ),
+    parameters,
+    reading: `Each entry gives the payoff to ${p1.name} (first) and to ${p2.name} (second) when ${p1.name} plays the row's strategy and ${p2.name} the column's.`,
+  };
+}
