@@ -1,0 +1,32 @@
+/**
+ * The worker inside the web process: instrumentation.ts calls startInlineWorker() once at
+ * server start (unless RESTPOINT_INLINE_WORKER=0, when `npm run worker` processes do the work).
+ */
+import "server-only";
+import { mailAuthor } from "./notify";
+import { VerificationWorker, type WorkerOptions } from "./loop";
+
+const slot = globalThis as unknown as { __restpointWorker?: VerificationWorker };
+
+/** Starts the one in-process worker (idempotent: a hot reload does not start a second). */
+export function startInlineWorker(options: WorkerOptions = {}): VerificationWorker {
+  if (slot.__restpointWorker === undefined) {
+    const worker = new VerificationWorker({ notify: mailAuthor, ...options });
+    worker.start();
+    slot.__restpointWorker = worker;
+  }
+  return slot.__restpointWorker;
+}
+
+/** Wakes the in-process worker after a new job was queued, so it need not wait for its next poll. */
+export function pokeWorker(): void {
+  slot.__restpointWorker?.poke();
+}
+
+export async function stopWorker(graceMs?: number): Promise<void> {
+  const worker = slot.__restpointWorker;
+  slot.__restpointWorker = undefined;
+  await worker?.stop(graceMs);
+}
+
+export { VerificationWorker, type WorkerOptions } from "./loop";
