@@ -3,6 +3,7 @@
  * spec, per-claim results, rest points, experiment figures and the engine's notes.
  */
 import type { ReactNode } from "react";
+import { ExperimentFigures } from "@/components/plots";
 import type { Claim, GameSpec, Report } from "@/lib/engine/types";
 import { ClaimsTable } from "./ClaimsTable";
 import { ReportNotes } from "./ReportNotes";
@@ -16,7 +17,7 @@ export interface ReportViewProps {
   game?: GameSpec;
   /** The spec's claims, for the author's notes beside each result. */
   specClaims?: readonly Claim[];
-  /** Experiment figures (rendered by the caller's plotting component), shown under their own heading. */
+  /** Replaces the default figures (ExperimentFigures of the game, its runs and rest points). */
   figures?: ReactNode;
 }
 
@@ -32,7 +33,13 @@ function Section({ id, title, children }: { id: string; title: string; children:
 }
 
 export function ReportView({ report, game, specClaims, figures }: ReportViewProps) {
-  const failedRuns = report.experiments.filter((e) => e.error !== undefined);
+  // Runs with no samples at all are reported by the figures themselves; these stopped part-way.
+  const failedRuns = report.experiments.filter((e) => e.error !== undefined && e.states.length > 0);
+  const shownFigures =
+    figures ??
+    (game === undefined ? null : (
+      <ExperimentFigures game={game} experiments={report.experiments} restPoints={report.restPoints ?? []} />
+    ));
   return (
     <article className="space-y-8" data-testid="report-view" data-verdict={report.verdict}>
       <VerdictBanner verdict={report.verdict} claims={report.claims} />
@@ -62,7 +69,7 @@ export function ReportView({ report, game, specClaims, figures }: ReportViewProp
               ))}
             </ul>
           )}
-          {figures}
+          {shownFigures}
         </Section>
       )}
 

@@ -49,6 +49,14 @@ describe("ReportView", () => {
     expect(t).toContain(marshReport.specSha256);
   });
 
+  it("draws the experiments with the plotting components when the game is known", () => {
+    const experiments = html.slice(html.indexOf('id="report-experiments"'));
+    // Three strategies: a simplex portrait and the run's time series, each an svg with a data-table alternative.
+    expect(experiments.match(/<svg/g)?.length ?? 0).toBeGreaterThanOrEqual(2);
+    expect(text(experiments)).toContain("loop");
+    expect(experiments).toContain("<table");
+  });
+
   it("renders the figures the caller passes under the experiments heading", () => {
     const withFigures = renderToStaticMarkup(
       <ReportView report={marshReport} game={marshGame} figures={<figure id="fig-loop">loop</figure>} />,
@@ -61,7 +69,7 @@ describe("ReportView", () => {
       ...marshReport,
       experiments: [{ id: "loop", times: [0], states: [[0.5, 0.25, 0.25]], error: "left the state space at t = 3.2" }],
     };
-    expect(text(renderToStaticMarkup(<ReportView report={stopped} />))).toContain(
+    expect(text(renderToStaticMarkup(<ReportView report={stopped} game={marshGame} />))).toContain(
       "loop stopped early: left the state space at t = 3.2",
     );
   });
