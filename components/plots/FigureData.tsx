@@ -9,6 +9,7 @@ import { useState, type MouseEvent, type ReactNode } from "react";
 import { trajectoryCsv, type CsvBlock } from "@/lib/plots/csv";
 import { standaloneSvg, type LegendEntry } from "@/lib/plots/export-svg";
 import { formatShare, formatTime } from "@/lib/plots/format";
+import { pageOf } from "@/lib/plots/paging";
 
 export const TABLE_PAGE_SIZE = 100;
 
@@ -53,23 +54,7 @@ const buttonClass =
 
 export function FigureData({ title, fileStem, legend, columns, blocks, withRun }: FigureDataProps): ReactNode {
   const [page, setPage] = useState(0);
-  const total = blocks.reduce((n, b) => n + b.times.length, 0);
-  const pages = Math.max(1, Math.ceil(total / TABLE_PAGE_SIZE));
-  const current = Math.min(page, pages - 1);
-  const first = current * TABLE_PAGE_SIZE;
-  const last = Math.min(total, first + TABLE_PAGE_SIZE);
-
-  // Rows of this page, found by walking the blocks' cumulative offsets.
-  const rows: { key: string; run: string; t: number; values: readonly number[] }[] = [];
-  let offset = 0;
-  for (const block of blocks) {
-    const n = block.times.length;
-    for (let i = Math.max(first - offset, 0); i < n && offset + i < last; i++) {
-      rows.push({ key: `${block.run}:${i}`, run: block.run, t: block.times[i] ?? NaN, values: block.rows[i] ?? [] });
-    }
-    offset += n;
-    if (offset >= last) break;
-  }
+  const { page: current, pages, total, first, last, rows } = pageOf(blocks, page, TABLE_PAGE_SIZE);
 
   const range = total === 0 ? "no rows" : `rows ${first + 1}–${last} of ${total}`;
   return (

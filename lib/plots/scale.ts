@@ -21,15 +21,16 @@ export function linearScale(domain: readonly [number, number], range: readonly [
 }
 
 /**
- * A "nice" step for covering `span` with about `count` intervals: 1, 2 or 5 times a power of ten
- * (the loose-labelling rule of Heckbert, "Nice numbers for graph labels", Graphics Gems, 1990).
+ * A "nice" step for covering `span` with about `count` intervals: 1, 2 or 5 times a power of ten,
+ * the raw step rounded to the nearest of them (the rounding variant of "nicenum" in Heckbert,
+ * "Nice numbers for graph labels", Graphics Gems, 1990).
  */
 export function niceStep(span: number, count: number): number {
   if (!(span > 0) || !Number.isFinite(span)) return 1;
   const raw = span / Math.max(1, count);
   const magnitude = 10 ** Math.floor(Math.log10(raw));
   const fraction = raw / magnitude;
-  const nice = fraction <= 1 ? 1 : fraction <= 2 ? 2 : fraction <= 5 ? 5 : 10;
+  const nice = fraction < 1.5 ? 1 : fraction < 3 ? 2 : fraction < 7 ? 5 : 10;
   return nice * magnitude;
 }
 
