@@ -66,6 +66,9 @@ export function toModelInput(v: ModelFormValues): ModelInput {
   };
 }
 
+/** The server action's answer when the posted values do not have the form's shape. */
+export const UNEXPECTED_FORM_MESSAGE = "The form sent something unexpected. Reload the page and try again.";
+
 export type FormErrors = Record<string, string>;
 
 /** Field errors keyed by JSON pointer ("/title", "/authors/0/orcid"); the first message per field. */

@@ -1,0 +1,97 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { ModelForm } from "@/components/deposit/ModelForm";
+import { formValuesOf } from "@/components/deposit/model-form";
+import { SpecUpload } from "@/components/deposit/SpecUpload";
+import { modelKey, VersionList } from "@/components/deposit/VersionList";
+import { Notice } from "@/components/ui/Notice";
+import { PageHeader, Section } from "@/components/ui/PageHeader";
+import { onPage, pageUser } from "@/lib/authz";
+import { getModel } from "@/lib/models";
+import { listVenues } from "@/lib/venues";
+import { updateModelAction } from "../actions";
+
+interface Props {
+  params: Promise<{ slug: string }>;
+  searchParams: Promise<Record<string, string | string[] | undefined>>;
+}
+
+async function ownModel(slug: string) {
+  const me = await pageUser();
+  const model = await onPage(() => getModel(slug, { id: me.userId, role: me.role }));
+  // The workspace page is the owner's desk; others who may read the model use its public or review page.
+  if (!model.canEdit) notFound();
+  return model;
+}
+
+export async function generateMetadata({ params }: Props): Promise<Metadata> {
+  const { slug } = await params;
+  const model = await ownModel(slug);
+  return { title: model.title };
+}
+
+export default async function ModelEntryPage({ params, searchParams }: Props) {
+  const { slug } = await params;
+  const created = (await searchParams).created === "1";
+  const model = await ownModel(slug);
+  const venues = await listVenues();
+  const latest = model.versions[0];
+  return (
+    <div className="flex flex-col gap-10">
+      <PageHeader
+        overline={`Model ${model.slug}`}
+        title={model.title}
+        lede={
+          <span>
+            {model.visibility === "public" ? "Public: listed in the registry." : "Private: only you, administrators and the venue's editors see it."}{" "}
+            {model.venue === null ? "Not submitted to a venue." : `Submitted to ${model.venue.name}.`}
+          </span>
+        }
+        actions={
+          model.visibility === "public" && latest !== undefined ? (
+            <Link className="rp-link text-sm font-semibold" href={`/models/${model.slug}`}>
+              Public page
+            </Link>
+          ) : undefined
+        }
+      />
+      {created && (
+        <Notice tone="success" title="The model entry was created.">
+          Upload its specification below to make v1; the re-run starts by itself.
+        </Notice>
+      )}
+
+      <Section
+        id="upload"
+        title={latest === undefined ? "Upload the specification" : "Upload a new version"}
+        description={
+          <>
+            A specification is a JSON file in the{" "}
+            <a className="rp-link" href="/schemas/model-spec.v1.json">
+              restpoint/model@1 format
+            </a>
+            . Each upload with new content becomes the next version; uploading the same content again makes none.
+          </>
+        }
+      >
+        <SpecUpload slug={model.slug} modelKey={modelKey(model.slug)} />
+      </Section>
+
+      <Section id="versions" title="Versions" description="Newest first. The verification state updates by itself while a re-run is queued or running.">
+        <VersionList initial={model} />
+      </Section>
+
+      <Section id="entry" title="The entry" description="Title, manuscript, authors, venue and visibility. Versions are not changed by this form.">
+        <div className="rp-card p-6">
+          <ModelForm
+            initial={formValuesOf(model)}
+            venues={venues.map((v) => ({ id: v.id, name: v.name }))}
+            action={updateModelAction.bind(null, model.slug)}
+            submitLabel="Save the entry"
+          />
+        </div>
+      </Section>
+    </div>
+  );
+}
