@@ -1,0 +1,344 @@
+/**
+ * Rest points of the replicator dynamics by support enumeration.
+ *
+ * Symmetric game (Hofbauer & Sigmund 1998, ch. 7): x with support S is a rest point of
+ * dx_i/dt = x_i((Ax)_i - x.Ax) iff (Ax)_i = v for all i in S, sum_S x_i = 1 and x_i > 0 on
+ * S. For each non-empty S this is the bordered linear system
+ *
+ *     [ A_SS  -1 ] [x_S]   [0]
+ *     [ 1^T    0 ] [ v ] = [1],
+ *
+ * solved by Gaussian elimination with partial pivoting. Rest points need not be Nash
+ * equilibria. Two populations: (x, y) with supports (S1, S2) is a rest point iff
+ * (A y)_i is constant on S1, (B x)_j is constant on S2 and both sum to 1.
+ *
+ * A singular system is not guessed at: its solution set is computed exactly (rank, null
+ * space); a one-dimensional solution set that meets the open face is a continuum of rest
+ * points, a larger one that cannot be decided cheaply is reported as undecided. Either
+ * makes rest-point counts inconclusive rather than wrong.
+ */
+import type { Budget } from "./budget";
+import { solveGeneral, solveInPlace } from "./linalg";
+
+/** Symmetric games up to this size are enumerated (2^n - 1 supports). */
+export const MAX_ENUMERATED_STRATEGIES = 20;
+/** Two-population games are enumerated when m + k is at most this. */
+export const MAX_ENUMERATED_BIMATRIX = 20;
+
+/** Relative pivot size below which a support's system is treated as singular. */
+export const PIVOT_TOLERANCE = 1e-12;
+/** A share must exceed this to count as inside the support; smaller ones belong to a smaller face. */
+export const SHARE_TOLERANCE = 1e-12;
+
+export interface RestPoint {
+  /** Flat state: n shares, or m + k shares (population 1 first). */
+  state: Float64Array;
+  /** Indices into the flat state with positive share, ascending. */
+  support: number[];
+}
+
+export interface RestPointSet {
+  points: RestPoint[];
+  /** Supports (flat indices) whose face holds a continuum of rest points. */
+  continua: number[][];
+  /** Supports whose singular system could not be decided. */
+  undecided: number[][];
+}
+
+function scaleOf(...mats: Float64Array[]): number {
+  let s = 0;
+  for (const M of mats) for (let i = 0; i < M.length; i++) s = Math.max(s, Math.abs(M[i] as number));
+  return s > 0 ? s : 1;
+}
+
+type Face = { kind: "none" } | { kind: "point"; x: Float64Array } | { kind: "continuum" } | { kind: "undecided" };
+
+/**
+ * Classifies the solution set of a singular bordered system, restricted to the open face
+ * (first `s` unknowns positive; the last unknown is the common payoff).
+ */
+function singularFace(M: Float64Array, b: Float64Array, rows: number, cols: number, s: number, tol: number): Face {
+  const sol = solveGeneral(M, b, rows, cols, tol);
+  if (!sol.consistent) return { kind: "none" };
+  const d = sol.nullSpace.length;
+  if (d === 0) {
+    const x = sol.particular.slice(0, s);
+    for (let i = 0; i < s; i++) if ((x[i] as number) <= SHARE_TOLERANCE) return { kind: "none" };
+    return { kind: "point", x };
+  }
+  // A null direction that moves no share leaves the point fixed (only the payoff unknown varies).
+  const moving = sol.nullSpace.filter((q) => {
+    for (let i = 0; i < s; i++) if (Math.abs(q[i] as number) > tol) return true;
+    return false;
+  });
+  if (moving.length === 0) {
+    const x = sol.particular.slice(0, s);
+    for (let i = 0; i < s; i++) if ((x[i] as number) <= SHARE_TOLERANCE) return { kind: "none" };
+    return { kind: "point", x };
+  }
+  if (moving.length === 1) {
+    const q = moving[0] as Float64Array;
+    const p = sol.particular;
+    // Interval of t with p_i + t q_i > 0 for every share.
+    let lo = -Infinity;
+    let hi = Infinity;
+    for (let i = 0; i < s; i++) {
+      const pi = p[i] as number;
+      const qi = q[i] as number;
+      if (Math.abs(qi) <= tol) {
+        if (pi <= SHARE_TOLERANCE) return { kind: "none" };
+      } else if (qi > 0) lo = Math.max(lo, -pi / qi);
+      else hi = Math.min(hi, -pi / qi);
+    }
+    return hi - lo > 1e-9 ? { kind: "continuum" } : { kind: "none" };
+  }
+  return { kind: "undecided" };
+}
+
+/** Bordered system for shares on `rowsIdx` equalised by matrix P (rows = own, cols = other). */
+function borderedFace(
+  P: Float64Array,
+  pCols: number,
+  rowsIdx: number[],
+  colsIdx: number[],
+  tol: number,
+): Face {
+  const r = rowsIdx.length + 1;
+  const c = colsIdx.length + 1;
+  const M = new Float64Array(r * c);
+  const b = new Float64Array(r);
+  rowsIdx.forEach((ri, a) => {
+    colsIdx.forEach((cj, bb) => {
+      M[a * c + bb] = P[ri * pCols + cj] as number;
+    });
+    M[a * c + c - 1] = -1;
+  });
+  for (let bb = 0; bb < c - 1; bb++) M[(r - 1) * c + bb] = 1;
+  b[r - 1] = 1;
+  if (r === c) {
+    const M2 = M.slice();
+    const b2 = b.slice();
+    if (solveInPlace(M2, b2, r, tol)) {
+      const x = b2.slice(0, c - 1);
+      for (let i = 0; i < c - 1; i++) if ((x[i] as number) <= SHARE_TOLERANCE) return { kind: "none" };
+      return { kind: "point", x };
+    }
+  }
+  return singularFace(M, b, r, c, c - 1, tol);
+}
+
+function supportOf(mask: number, n: number, offset = 0): number[] {
+  const out: number[] = [];
+  for (let i = 0; i < n; i++) if ((mask >>> i) & 1) out.push(i + offset);
+  return out;
+}
+
+/**
+ * All rest points of the symmetric replicator dynamics for the n x n payoff matrix A
+ * (row-major, A[i*n+j] = payoff to i against j), by enumeration of the 2^n - 1 supports.
+ * Buffers are allocated once and reused; the budget's wall clock is checked as it goes.
+ */
+export function symmetricRestPoints(A: Float64Array, n: number, budget?: Budget): RestPointSet {
+  if (n > MAX_ENUMERATED_STRATEGIES) throw new RangeError(`support enumeration is limited to ${MAX_ENUMERATED_STRATEGIES} strategies`);
+  const tol = PIVOT_TOLERANCE * scaleOf(A);
+  const maxDim = n + 1;
+  const M = new Float64Array(maxDim * maxDim);
+  const b = new Float64Array(maxDim);
+  const idx = new Int32Array(n);
+  const points: RestPoint[] = [];
+  const continua: number[][] = [];
+  const undecided: number[][] = [];
+  const total = 2 ** n;
+  for (let mask = 1; mask < total; mask++) {
+    if ((mask & 0xfff) === 0) budget?.checkTime();
+    let s = 0;
+    for (let i = 0; i < n; i++) if ((mask >>> i) & 1) idx[s++] = i;
+    const d = s + 1;
+    // Fill the bordered matrix.
+    for (let a = 0; a < s; a++) {
+      const ra = (idx[a] as number) * n;
+      const row = a * d;
+      for (let c = 0; c < s; c++) M[row + c] = A[ra + (idx[c] as number)] as number;
+      M[row + s] = -1;
+      b[a] = 0;
+    }
+    const last = s * d;
+    for (let c = 0; c < s; c++) M[last + c] = 1;
+    M[last + s] = 0;
+    b[s] = 1;
+    if (eliminate(M, b, d, tol)) {
+      let ok = true;
+      for (let a = 0; a < s; a++) {
+        if ((b[a] as number) <= SHARE_TOLERANCE) {
+          ok = false;
+          break;
+        }
+      }
+      if (!ok) continue;
+      const state = new Float64Array(n);
+      for (let a = 0; a < s; a++) state[idx[a] as number] = b[a] as number;
+      points.push({ state, support: Array.from(idx.subarray(0, s)) });
+      continue;
+    }
+    const sup = Array.from(idx.subarray(0, s));
+    const face = borderedFace(A, n, sup, sup, tol);
+    if (face.kind === "point") {
+      const state = new Float64Array(n);
+      sup.forEach((i, a) => {
+        state[i] = face.x[a] as number;
+      });
+      points.push({ state, support: sup });
+    } else if (face.kind === "continuum") continua.push(sup);
+    else if (face.kind === "undecided") undecided.push(sup);
+  }
+  return { points: dedupe(points), continua, undecided };
+}
+
+/**
+ * In-place Gaussian elimination with partial pivoting on a d x d system stored with row
+ * stride d; the solution is left in b. Returns false on a pivot at or below tol.
+ */
+function eliminate(M: Float64Array, b: Float64Array, d: number, tol: number): boolean {
+  for (let c = 0; c < d; c++) {
+    let p = c;
+    let best = Math.abs(M[c * d + c] as number);
+    for (let r = c + 1; r < d; r++) {
+      const v = Math.abs(M[r * d + c] as number);
+      if (v > best) {
+        best = v;
+        p = r;
+      }
+    }
+    if (best <= tol) return false;
+    const cc = c * d;
+    if (p !== c) {
+      const pc = p * d;
+      for (let j = c; j < d; j++) {
+        const t = M[cc + j] as number;
+        M[cc + j] = M[pc + j] as number;
+        M[pc + j] = t;
+      }
+      const t = b[c] as number;
+      b[c] = b[p] as number;
+      b[p] = t;
+    }
+    const inv = 1 / (M[cc + c] as number);
+    const bc = b[c] as number;
+    for (let r = c + 1; r < d; r++) {
+      const rc = r * d;
+      const f = (M[rc + c] as number) * inv;
+      if (f === 0) continue;
+      for (let j = c + 1; j < d; j++) M[rc + j] = (M[rc + j] as number) - f * (M[cc + j] as number);
+      b[r] = (b[r] as number) - f * bc;
+    }
+  }
+  for (let r = d - 1; r >= 0; r--) {
+    const rr = r * d;
+    let s = b[r] as number;
+    for (let j = r + 1; j < d; j++) s -= (M[rr + j] as number) * (b[j] as number);
+    b[r] = s / (M[rr + r] as number);
+  }
+  return true;
+}
+
+/**
+ * Removes near-duplicates (max-norm 1e-9) that arise when a share is numerically tiny: the
+ * point is kept with the smaller support. Only points with a share below 1e-8 are compared.
+ */
+function dedupe(points: RestPoint[]): RestPoint[] {
+  const suspicious = points.filter((p) => p.support.some((i) => (p.state[i] as number) < 1e-8));
+  if (suspicious.length === 0) return points;
+  const drop = new Set<RestPoint>();
+  for (const p of suspicious) {
+    for (const q of points) {
+      if (q === p || drop.has(q) || q.support.length >= p.support.length) continue;
+      let d = 0;
+      for (let i = 0; i < p.state.length; i++) d = Math.max(d, Math.abs((p.state[i] as number) - (q.state[i] as number)));
+      if (d <= 1e-9) {
+        drop.add(p);
+        break;
+      }
+    }
+  }
+  return points.filter((p) => !drop.has(p));
+}
+
+/**
+ * All rest points of the two-population replicator dynamics
+ * dx_i/dt = x_i((Ay)_i - x.Ay), dy_j/dt = y_j((Bx)_j - y.Bx), with A m x k and B k x m
+ * (row-major), by enumeration of support pairs. States are flat: m shares then k shares.
+ */
+export function bimatrixRestPoints(A: Float64Array, B: Float64Array, m: number, k: number, budget?: Budget): RestPointSet {
+  if (m + k > MAX_ENUMERATED_BIMATRIX) throw new RangeError(`support enumeration is limited to ${MAX_ENUMERATED_BIMATRIX} strategies in all`);
+  const tol = PIVOT_TOLERANCE * scaleOf(A, B);
+  const points: RestPoint[] = [];
+  const continua: number[][] = [];
+  const undecided: number[][] = [];
+  let count = 0;
+  for (let m1 = 1; m1 < 2 ** m; m1++) {
+    const S1 = supportOf(m1, m);
+    for (let m2 = 1; m2 < 2 ** k; m2++) {
+      if ((++count & 0xfff) === 0) budget?.checkTime();
+      const S2 = supportOf(m2, k);
+      // Shares x on S1 are fixed by population 2's indifference on S2 (rows of B), and vice versa.
+      const fx = borderedFace(B, m, S2, S1, tol);
+      if (fx.kind === "none") continue;
+      const fy = borderedFace(A, k, S1, S2, tol);
+      if (fy.kind === "none") continue;
+      const flat = [...S1, ...S2.map((j) => j + m)];
+      if (fx.kind === "point" && fy.kind === "point") {
+        const state = new Float64Array(m + k);
+        S1.forEach((i, a) => {
+          state[i] = fx.x[a] as number;
+        });
+        S2.forEach((j, a) => {
+          state[m + j] = fy.x[a] as number;
+        });
+        points.push({ state, support: flat });
+      } else if (fx.kind === "undecided" || fy.kind === "undecided") undecided.push(flat);
+      else continua.push(flat);
+    }
+  }
+  return { points: dedupe(points), continua, undecided };
+}
+
+/**
+ * The rest point of the replicator dynamics whose support is exactly `support` (flat
+ * indices; for two populations, population 1's indices first, then m + j), if that face's
+ * system has a unique solution with every share positive. `game` gives the matrices.
+ */
+export function restPointOnSupport(
+  game: { kind: "symmetric"; n: number; A: Float64Array } | { kind: "bimatrix"; m: number; k: number; A: Float64Array; B: Float64Array },
+  support: number[],
+): { kind: "point"; state: Float64Array } | { kind: "none" | "continuum" | "undecided" } {
+  if (game.kind === "symmetric") {
+    const tol = PIVOT_TOLERANCE * scaleOf(game.A);
+    const sup = [...support].sort((a, b) => a - b);
+    const face = borderedFace(game.A, game.n, sup, sup, tol);
+    if (face.kind !== "point") return { kind: face.kind };
+    const state = new Float64Array(game.n);
+    sup.forEach((i, a) => {
+      state[i] = face.x[a] as number;
+    });
+    return { kind: "point", state };
+  }
+  const { m, k, A, B } = game;
+  const tol = PIVOT_TOLERANCE * scaleOf(A, B);
+  const S1 = support.filter((i) => i < m).sort((a, b) => a - b);
+  const S2 = support.filter((i) => i >= m).map((i) => i - m).sort((a, b) => a - b);
+  if (S1.length === 0 || S2.length === 0) return { kind: "none" };
+  const fx = borderedFace(B, m, S2, S1, tol);
+  const fy = borderedFace(A, k, S1, S2, tol);
+  if (fx.kind === "none" || fy.kind === "none") return { kind: "none" };
+  if (fx.kind === "point" && fy.kind === "point") {
+    const state = new Float64Array(m + k);
+    S1.forEach((i, a) => {
+      state[i] = fx.x[a] as number;
+    });
+    S2.forEach((j, a) => {
+      state[m + j] = fy.x[a] as number;
+    });
+    return { kind: "point", state };
+  }
+  return { kind: fx.kind === "undecided" || fy.kind === "undecided" ? "undecided" : "continuum" };
+}

@@ -1,0 +1,389 @@
+/**
+ * Validation of a model spec: the JSON Schema (draft 2020-12, schemas/model-spec.v1.schema.json,
+ * compiled once with ajv) and then the rules a schema cannot express (matrix shapes, states
+ * summing to 1, references between claims, experiments and strategies, parameters used by
+ * expressions, payoffs that evaluate to NaN or Infinity, ORCID check digits). Every error
+ * carries the RFC 6901 pointer of the offending value and one plain sentence.
+ */
+import Ajv2020, { type ErrorObject } from "ajv/dist/2020";
+import addFormats from "ajv-formats";
+import schema from "../../schemas/model-spec.v1.schema.json";
+import { MAX_DEPTH, jsonDepth } from "./canonical";
+import { PayoffError, compileExpression, compileGame } from "./payoffs";
+import type { GameSpec, ModelSpec, Parameters, SpecError } from "./types";
+
+/** Specs above this many bytes of JSON text are refused before parsing. */
+export const MAX_INPUT_BYTES = 1_000_000;
+/** States must sum to 1 within this. */
+export const STATE_SUM_TOLERANCE = 1e-9;
+
+const ajv = new Ajv2020({ allErrors: true, strict: true, discriminator: true });
+addFormats(ajv);
+const validateSchema = ajv.compile(schema);
+
+const KINDS: Record<string, string[]> = {
+  "/game": ["symmetric", "bimatrix"],
+  "/dynamics": ["replicator", "replicator-mutator", "logit", "brown-von-neumann-nash", "smith"],
+  claim: ["rest-point", "nash-equilibrium", "ess", "rest-point-count", "final-state", "trajectory", "fixation-probability"],
+};
+
+/** Escapes one token for a JSON pointer (RFC 6901). */
+export function pointerToken(token: string | number): string {
+  return String(token).replace(/~/g, "~0").replace(/\//g, "~1");
+}
+
+function lastToken(path: string): string {
+  const t = path.split("/").pop() ?? "";
+  return t.replace(/~1/g, "/").replace(/~0/g, "~");
+}
+
+function subject(path: string): string {
+  if (path === "") return "The spec";
+  const t = lastToken(path);
+  return /^\d+$/.test(t) ? `Entry ${Number(t) + 1} of "${lastToken(path.slice(0, path.lastIndexOf("/"))) || "the list"}"` : `"${t}"`;
+}
+
+function valueAt(root: unknown, path: string): unknown {
+  if (path === "") return root;
+  let v: unknown = root;
+  for (const raw of path.split("/").slice(1)) {
+    const t = raw.replace(/~1/g, "/").replace(/~0/g, "~");
+    if (v === null || typeof v !== "object") return undefined;
+    v = (v as Record<string, unknown>)[t];
+  }
+  return v;
+}
+
+const isClaimPath = (p: string): boolean => /^\/claims\/\d+$/.test(p);
+
+/** One ajv error as a sentence a modeller can act on. */
+function describe(e: ErrorObject, root: unknown): SpecError {
+  const path = e.instancePath;
+  const p = e.params as Record<string, unknown>;
+  const here = valueAt(root, path);
+  const subj = subject(path);
+  switch (e.keyword) {
+    case "required": {
+      const prop = String(p.missingProperty);
+      return { path: `${path}/${pointerToken(prop)}`, message: `The field "${prop}" is required here but missing.` };
+    }
+    case "additionalProperties": {
+      const prop = String(p.additionalProperty);
+      return { path: `${path}/${pointerToken(prop)}`, message: `"${prop}" is not a field the format knows here; check its spelling or remove it.` };
+    }
+    case "const":
+      if (path === "/format") return { path, message: `The format must be "restpoint/model@1"; this file says ${JSON.stringify(here)}.` };
+      return { path, message: `${subj} must be ${JSON.stringify(p.allowedValue)}.` };
+    case "enum":
+      return { path, message: `${subj} must be one of ${(p.allowedValues as unknown[]).map((v) => JSON.stringify(v)).join(", ")}.` };
+    case "type": {
+      const t = String(p.type);
+      const word = t === "integer" ? "a whole number" : t === "array" ? "a list" : t === "object" ? "an object" : `a ${t}`;
+      return { path, message: `${subj} must be ${word}.` };
+    }
+    case "discriminator": {
+      const key = path === "/game" || path === "/dynamics" ? path : isClaimPath(path) ? "claim" : path;
+      const kinds = KINDS[key] ?? [];
+      const what = key === "/game" ? "game" : key === "/dynamics" ? "dynamics" : "claim";
+      if (p.error === "mapping") {
+        return { path: `${path}/kind`, message: `Unknown ${what} kind ${JSON.stringify(p.tagValue)}; use one of ${kinds.join(", ")}.` };
+      }
+      return { path: `${path}/kind`, message: `The ${what} kind must be a string: one of ${kinds.join(", ")}.` };
+    }
+    case "minimum":
+    case "maximum":
+    case "exclusiveMinimum":
+    case "exclusiveMaximum": {
+      const limit = Number(p.limit);
+      const field = lastToken(path);
+      if (field === "samples" && e.keyword === "maximum") return { path, message: `An experiment may ask for at most ${limit} samples; this one asks for ${String(here)}.` };
+      if (field === "duration" && e.keyword === "maximum") return { path, message: `The duration ${String(here)} is too long: runs are limited to ${limit} time units.` };
+      if (field === "populationSize") return { path, message: `The population size must be from 2 to 100000; it is ${String(here)}.` };
+      const rel = e.keyword === "minimum" ? "at least" : e.keyword === "maximum" ? "at most" : e.keyword === "exclusiveMinimum" ? "greater than" : "less than";
+      if (/\/(state|initial)(\/\d+)+$/.test(path)) return { path, message: `A share must lie between 0 and 1; this one is ${String(here)}.` };
+      return { path, message: `${subj} must be ${rel} ${limit}; it is ${String(here)}.` };
+    }
+    case "minItems":
+    case "maxItems": {
+      const limit = Number(p.limit);
+      const len = Array.isArray(here) ? here.length : 0;
+      if (lastToken(path) === "strategies" && e.keyword === "maxItems") return { path, message: `The game has ${len} strategies; the engine handles at most ${limit}.` };
+      if (lastToken(path) === "strategies") return { path, message: `A game needs at least ${limit} strategies; this one has ${len}.` };
+      if (path === "/claims") return { path, message: "The spec must make at least one claim." };
+      return { path, message: `${subj} must have ${e.keyword === "minItems" ? "at least" : "at most"} ${limit} entries; it has ${len}.` };
+    }
+    case "minLength":
+    case "maxLength": {
+      const limit = Number(p.limit);
+      const len = typeof here === "string" ? here.length : 0;
+      if (e.keyword === "minLength") return { path, message: `${subj} must not be empty.` };
+      return { path, message: `${subj} is ${len} characters long; at most ${limit} are allowed.` };
+    }
+    case "pattern": {
+      const field = lastToken(path);
+      if (field === "orcid") return { path, message: `${JSON.stringify(here)} is not an ORCID iD; write it as four groups of four digits (the last may be X), as in 0000-0002-1825-0097.` };
+      if (field === "doi") return { path, message: `${JSON.stringify(here)} is not a DOI; a DOI starts with 10., a registrant code of at least 4 digits and a slash, as in 10.1000/xyz123.` };
+      if (field === "url") return { path, message: `${JSON.stringify(here)} must be an http or https address.` };
+      if (e.schemaPath.includes("propertyNames")) return { path, message: "Parameter names must start with a letter and contain only letters, digits and underscores (at most 64 characters)." };
+      return { path, message: `${JSON.stringify(here)} is not a valid identifier here: use lower-case letters, digits and single hyphens, as in "long-run-share".` };
+    }
+    case "propertyNames":
+      return { path: `${path}/${pointerToken(String(p.propertyName))}`, message: `${JSON.stringify(p.propertyName)} is not a valid parameter name: it must start with a letter and contain only letters, digits and underscores (at most 64 characters).` };
+    case "uniqueItems":
+      return { path: `${path}/${String(p.i)}`, message: `Strategy names must be unique; ${JSON.stringify(Array.isArray(here) ? here[Number(p.i)] : "")} appears twice.` };
+    case "maxProperties":
+      return { path, message: `${subj} may have at most ${String(p.limit)} entries.` };
+    case "format":
+      return { path, message: `${JSON.stringify(here)} is not a valid web address.` };
+    case "oneOf":
+    case "anyOf": {
+      if (e.schemaPath.includes("payoffEntry")) {
+        if (typeof here === "string" && here.length > 500) {
+          return { path, message: `The expression is ${here.length} characters long; payoff expressions are limited to 500 characters.` };
+        }
+        if (here === "") return { path, message: "A payoff expression must not be empty." };
+        return { path, message: "A payoff must be a number or an expression string over the parameters." };
+      }
+      if (e.schemaPath.includes("state")) {
+        return { path, message: "A state must be a list of shares in strategy order (each between 0 and 1) or, for a two-population game, a pair of such lists." };
+      }
+      return { path, message: `${subj} does not match any of the allowed forms.` };
+    }
+    default:
+      return { path, message: `${subj}: ${e.message ?? "is not valid"}.` };
+  }
+}
+
+/**
+ * Removes errors that only explain why each alternative of a oneOf failed (the oneOf error
+ * itself says it in one sentence), and drops ajv's duplicate of a propertyNames failure.
+ */
+function prune(errors: ErrorObject[]): ErrorObject[] {
+  const ones = errors.filter((e) => e.keyword === "oneOf" || e.keyword === "anyOf");
+  const names = errors.filter((e) => e.keyword === "propertyNames");
+  return errors.filter((e) => {
+    if (e.keyword === "pattern" && e.schemaPath.includes("propertyNames") && names.some((n) => n.instancePath === e.instancePath)) return false;
+    if (e.keyword === "required" && String((e.params as Record<string, unknown>).missingProperty) === "kind" && errors.some((d) => d.keyword === "discriminator" && d.instancePath === e.instancePath)) return false;
+    return !ones.some((o) => o !== e && e.schemaPath.startsWith(`${o.schemaPath}/`) && e.instancePath.startsWith(o.instancePath));
+  });
+}
+
+/** ORCID check character (ISO 7064 MOD 11-2 over the first 15 digits). */
+export function orcidChecksumValid(orcid: string): boolean {
+  const digits = orcid.replace(/-/g, "");
+  if (!/^\d{15}[\dX]$/.test(digits)) return false;
+  let total = 0;
+  for (let i = 0; i < 15; i++) total = (total + Number(digits[i])) * 2;
+  const result = (12 - (total % 11)) % 11;
+  return digits[15] === (result === 10 ? "X" : String(result));
+}
+
+function dedupe(errors: SpecError[]): SpecError[] {
+  const seen = new Set<string>();
+  return errors.filter((e) => {
+    const key = `${e.path}\u0000${e.message}`;
+    if (seen.has(key)) return false;
+    seen.add(key);
+    return true;
+  });
+}
+
+/** Checks a state's shape for the game and that each population's shares sum to 1. */
+function checkState(state: unknown, path: string, game: GameSpec, out: SpecError[]): void {
+  if (!Array.isArray(state)) return;
+  const sums = (shares: unknown[], p: string, n: number, who: string): void => {
+    if (shares.length !== n) {
+      out.push({ path: p, message: `${who} must have ${n} shares, one per strategy in order; it has ${shares.length}.` });
+      return;
+    }
+    let s = 0;
+    for (const v of shares) s += typeof v === "number" ? v : Number.NaN;
+    if (!(Math.abs(s - 1) <= STATE_SUM_TOLERANCE)) {
+      out.push({ path: p, message: `The shares of ${who.toLowerCase()} must sum to 1 (within ${STATE_SUM_TOLERANCE}); they sum to ${Number.isFinite(s) ? String(Number(s.toPrecision(15))) : "a non-number"}.` });
+    }
+  };
+  if (game.kind === "symmetric") {
+    if (state.some((v) => Array.isArray(v))) {
+      out.push({ path, message: "This is a symmetric game: a state is one list of shares, not a pair of lists." });
+      return;
+    }
+    sums(state, path, game.strategies.length, "The state");
+    return;
+  }
+  const [x, y] = state as unknown[];
+  if (state.length !== 2 || !Array.isArray(x) || !Array.isArray(y)) {
+    out.push({ path, message: "This is a two-population game: a state is a pair [x, y] with one list of shares per population." });
+    return;
+  }
+  sums(x, `${path}/0`, game.populations[0].strategies.length, `The state of ${game.populations[0].name}`);
+  sums(y, `${path}/1`, game.populations[1].strategies.length, `The state of ${game.populations[1].name}`);
+}
+
+function checkMatrix(rows: unknown[], path: string, r: number, c: number, what: string, out: SpecError[]): boolean {
+  if (rows.length !== r) {
+    out.push({ path, message: `${what} must have ${r} rows (one per strategy); it has ${rows.length}.` });
+    return false;
+  }
+  let ok = true;
+  rows.forEach((row, i) => {
+    if (Array.isArray(row) && row.length !== c) {
+      out.push({ path: `${path}/${i}`, message: `Row ${i + 1} of ${what.charAt(0).toLowerCase()}${what.slice(1)} must have ${c} entries (one per ${c === r ? "strategy" : "opposing strategy"}); it has ${row.length}.` });
+      ok = false;
+    }
+  });
+  return ok;
+}
+
+/** Semantic rules beyond the schema, for a spec that already passed it. */
+function semanticErrors(spec: ModelSpec): SpecError[] {
+  const out: SpecError[] = [];
+  const game = spec.game;
+  spec.authors?.forEach((a, i) => {
+    if (a.orcid !== undefined && !orcidChecksumValid(a.orcid)) {
+      out.push({ path: `/authors/${i}/orcid`, message: `The ORCID iD ${a.orcid} has a wrong check digit (ISO 7064 MOD 11-2); it is probably mistyped.` });
+    }
+  });
+  let shapesOk: boolean;
+  if (game.kind === "symmetric") {
+    const n = game.strategies.length;
+    shapesOk = checkMatrix(game.payoffs, "/game/payoffs", n, n, "The payoff matrix", out);
+  } else {
+    const m = game.populations[0].strategies.length;
+    const k = game.populations[1].strategies.length;
+    const a = checkMatrix(game.payoffs[0], "/game/payoffs/0", m, k, `The payoff matrix of ${game.populations[0].name}`, out);
+    const b = checkMatrix(game.payoffs[1], "/game/payoffs/1", k, m, `The payoff matrix of ${game.populations[1].name}`, out);
+    shapesOk = a && b;
+  }
+
+  const defined = new Set(Object.keys(spec.parameters ?? {}));
+  const checkOverrides = (params: Parameters | undefined, base: string): boolean => {
+    let ok = true;
+    for (const name of Object.keys(params ?? {})) {
+      if (!defined.has(name)) {
+        out.push({ path: `${base}/parameters/${pointerToken(name)}`, message: `"${name}" overrides a parameter the spec does not define; define it under "parameters" first.` });
+        ok = false;
+      }
+    }
+    return ok;
+  };
+
+  // Expressions: structure and parameter names, once per entry.
+  let exprOk = shapesOk;
+  const matrices: [unknown[], string][] = game.kind === "symmetric" ? [[game.payoffs, "/game/payoffs"]] : [[game.payoffs[0], "/game/payoffs/0"], [game.payoffs[1], "/game/payoffs/1"]];
+  for (const [rows, base] of matrices) {
+    rows.forEach((row, i) => {
+      if (!Array.isArray(row)) return;
+      row.forEach((entry, j) => {
+        if (typeof entry !== "string") return;
+        try {
+          compileExpression(entry, `${base}/${i}/${j}`, defined);
+        } catch (e) {
+          if (e instanceof PayoffError) {
+            out.push({ path: e.path, message: e.message });
+            exprOk = false;
+          } else throw e;
+        }
+      });
+    });
+  }
+
+  const experimentIds = new Map<string, number>();
+  spec.experiments?.forEach((ex, i) => {
+    if (experimentIds.has(ex.id)) out.push({ path: `/experiments/${i}/id`, message: `The experiment id "${ex.id}" is used twice; ids must be unique.` });
+    else experimentIds.set(ex.id, i);
+    checkState(ex.initial, `/experiments/${i}/initial`, game, out);
+    checkOverrides(ex.parameters, `/experiments/${i}`);
+  });
+
+  const strategyNames = game.kind === "symmetric" ? game.strategies : [];
+  const claimIds = new Set<string>();
+  spec.claims.forEach((c, i) => {
+    const base = `/claims/${i}`;
+    if (claimIds.has(c.id)) out.push({ path: `${base}/id`, message: `The claim id "${c.id}" is used twice; ids must be unique.` });
+    claimIds.add(c.id);
+    checkOverrides(c.parameters, base);
+    switch (c.kind) {
+      case "rest-point":
+      case "nash-equilibrium":
+        checkState(c.state, `${base}/state`, game, out);
+        break;
+      case "ess":
+        if (game.kind !== "symmetric") out.push({ path: `${base}/kind`, message: "ESS claims apply to symmetric games only; this game has two populations." });
+        else checkState(c.state, `${base}/state`, game, out);
+        break;
+      case "rest-point-count":
+        break;
+      case "final-state":
+      case "trajectory": {
+        const ei = experimentIds.get(c.experiment);
+        const ex = ei === undefined ? undefined : spec.experiments?.[ei];
+        if (ex === undefined) {
+          out.push({ path: `${base}/experiment`, message: `The claim refers to the experiment "${c.experiment}", which the spec does not define.` });
+        }
+        if (c.kind === "final-state") checkState(c.state, `${base}/state`, game, out);
+        else {
+          c.points.forEach((pt, j) => {
+            if (ex !== undefined && pt.t > ex.duration) {
+              out.push({ path: `${base}/points/${j}/t`, message: `The time ${pt.t} lies beyond the end of the experiment "${ex.id}" (duration ${ex.duration}).` });
+            }
+            checkState(pt.state, `${base}/points/${j}/state`, game, out);
+          });
+        }
+        break;
+      }
+      case "fixation-probability": {
+        if (game.kind !== "symmetric") {
+          out.push({ path: `${base}/kind`, message: "Fixation-probability claims apply to symmetric games only; this game has two populations." });
+          break;
+        }
+        for (const field of ["mutant", "resident"] as const) {
+          if (!strategyNames.includes(c[field])) {
+            out.push({ path: `${base}/${field}`, message: `The ${field} "${c[field]}" is not one of the game's strategies (${strategyNames.join(", ")}).` });
+          }
+        }
+        if (c.mutant === c.resident) out.push({ path: `${base}/resident`, message: "The mutant and the resident must be different strategies." });
+        break;
+      }
+    }
+  });
+
+  // Payoffs at every parameter set in use must be finite numbers.
+  if (exprOk) {
+    const sets: [Parameters | undefined, string][] = [[undefined, ""]];
+    spec.experiments?.forEach((ex) => {
+      if (ex.parameters !== undefined) sets.push([ex.parameters, ` with the parameters of experiment "${ex.id}"`]);
+    });
+    spec.claims.forEach((c) => {
+      if (c.parameters !== undefined) sets.push([c.parameters, ` with the parameters of claim "${c.id}"`]);
+    });
+    const failed = new Set<string>();
+    for (const [params, where] of sets) {
+      if (params !== undefined && Object.keys(params).some((k) => !defined.has(k))) continue;
+      try {
+        compileGame(spec, params);
+      } catch (e) {
+        if (!(e instanceof PayoffError)) throw e;
+        if (failed.has(e.path)) continue;
+        failed.add(e.path);
+        out.push({ path: e.path, message: where === "" ? e.message : e.message.replace(/\.$/, `${where}.`) });
+      }
+    }
+  }
+  return out;
+}
+
+/**
+ * Validates a parsed spec: schema first, then semantic rules. Returns [] for a valid spec.
+ * Deeply nested input is refused before the schema is applied.
+ */
+export function validateSpec(input: unknown): SpecError[] {
+  const depth = jsonDepth(input, MAX_DEPTH);
+  if (depth > MAX_DEPTH) {
+    return [{ path: "", message: `The JSON is nested more than ${MAX_DEPTH} levels deep; a model spec never needs that, so it is refused.` }];
+  }
+  if (!validateSchema(input)) {
+    return dedupe(prune(validateSchema.errors ?? []).map((e) => describe(e, input)));
+  }
+  return dedupe(semanticErrors(input as unknown as ModelSpec));
+}
+
