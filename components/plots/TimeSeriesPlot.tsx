@@ -6,7 +6,7 @@
 import type { ReactNode } from "react";
 import type { ExperimentReport } from "@/lib/engine/types";
 import { experimentRows, panelShares, stateColumns, statePanels, type PlotGame } from "@/lib/plots/data";
-import { minMaxIndices, pointsAttribute, type Point } from "@/lib/plots/downsample";
+import { minMaxIndices, pointsAttribute, simplifyPath, type Point } from "@/lib/plots/downsample";
 import type { LegendEntry } from "@/lib/plots/export-svg";
 import { fileStem, formatShare, formatTime } from "@/lib/plots/format";
 import { linearScale } from "@/lib/plots/scale";
@@ -24,6 +24,8 @@ export const TIME_SERIES_WIDTH = 560;
 const PANEL_HEIGHT = 260;
 const MARGIN = { left: 62, right: 18, top: 28, bottom: 50 };
 const MARKERS_PER_SERIES = 4;
+/** Drawing units a thinned line may deviate from the full one (a unit is at most 1.4 screen pixels). */
+const LINE_TOLERANCE = 0.25;
 
 /** Strategies named in a summary sentence per panel; the rest are counted. */
 const SUMMARY_NAMES = 6;
@@ -64,7 +66,11 @@ export function TimeSeriesPlot({ game, experiment, title }: TimeSeriesPlotProps)
         ys[i] = state === undefined ? NaN : (panelShares(game, state, p)[s] ?? NaN);
       }
       const kept = minMaxIndices(times.slice(0, n), ys, columns);
-      const points: Point[] = kept.map((i) => [x(times[i] ?? NaN), y(ys[i] ?? NaN)]);
+      // Per-column extremes first (bounded work), then drop what lies within a fraction of a unit.
+      const points = simplifyPath(
+        kept.map((i): Point => [x(times[i] ?? NaN), y(ys[i] ?? NaN)]),
+        LINE_TOLERANCE,
+      );
       // Markers at staggered positions so those of different series do not sit on top of each other.
       const markers: Point[] = [];
       if (n > 0) {

@@ -126,7 +126,13 @@ export function simplifyPath(points: readonly Point[], tolerance: number): Point
 
 /** SVG `points` attribute text, rounded to `decimals` (a tenth of a unit is below a pixel here). */
 export function pointsAttribute(points: readonly Point[], decimals = 1): string {
-  return points.map((p) => `${round(p[0], decimals)},${round(p[1], decimals)}`).join(" ");
+  const out: string[] = [];
+  for (const p of points) {
+    const text = `${round(p[0], decimals)},${round(p[1], decimals)}`;
+    // Points that coincide after rounding draw nothing new.
+    if (out[out.length - 1] !== text) out.push(text);
+  }
+  return out.join(" ");
 }
 
 function round(value: number, decimals: number): string {
