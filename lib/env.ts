@@ -25,6 +25,14 @@ const schema = z.object({
   RESTPOINT_INLINE_WORKER: z.enum(["0", "1"]).default("1"),
   /** "1" seeds the demo data at start when the database is empty of it. */
   RESTPOINT_DEMO: z.enum(["0", "1"]).optional(),
+  /** Set by Next.js while it builds; build-time page-data collection must not need production secrets. */
+  NEXT_PHASE: z.string().optional(),
+  /** Sign-in attempts allowed per client address within the window (seconds). Strict by default. */
+  AUTH_SIGN_IN_MAX: z.coerce.number().int().min(1).default(5),
+  AUTH_SIGN_IN_WINDOW: z.coerce.number().int().min(1).default(60),
+  /** Sign-up attempts allowed per client address within the window (seconds). */
+  AUTH_SIGN_UP_MAX: z.coerce.number().int().min(1).default(10),
+  AUTH_SIGN_UP_WINDOW: z.coerce.number().int().min(1).default(60),
 });
 
 const parsed = schema.safeParse(process.env);
@@ -35,10 +43,19 @@ if (!parsed.success) {
 const raw = parsed.data;
 
 const dataDir = path.resolve(raw.DATA_DIR);
+const isProduction = raw.NODE_ENV === "production";
+/** Development, tests, or a deployment that asked for demo data: the fake mail server and demo hints are on. */
+const demoMode = !isProduction || raw.RESTPOINT_DEMO === "1";
 
 export const env = {
   ...raw,
-  isProduction: raw.NODE_ENV === "production",
+  isProduction,
+  isBuild: raw.NEXT_PHASE === "phase-production-build",
+  demoMode,
+  /** Seed demo accounts and the demo venue at start: in development unless RESTPOINT_DEMO=0, elsewhere only with RESTPOINT_DEMO=1. */
+  seedDemo: raw.RESTPOINT_DEMO === "1" || (raw.NODE_ENV === "development" && raw.RESTPOINT_DEMO !== "0"),
+  /** Mail goes to the local fake SMTP server (and is captured in the database) when no real server is configured. */
+  useFakeSmtp: raw.SMTP_URL === undefined && demoMode,
   isTest: raw.NODE_ENV === "test",
   dataDir,
   uploadsDir: path.resolve(raw.UPLOADS_DIR),

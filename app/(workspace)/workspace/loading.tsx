@@ -1,0 +1,5 @@
+import { LoadingBlocks } from "@/components/ui/Loading";
+
+export default function Loading() {
+  return <LoadingBlocks label="Loading your workspace" />;
+}
