@@ -10,9 +10,15 @@ import { sql, type SQL } from "drizzle-orm";
 import { z } from "zod";
 import { db } from "@/db/client";
 import { VERDICTS } from "@/db/schema";
-import { ValidationError } from "@/lib/errors";
+import type { CitationInput } from "@/lib/citation";
+import type { GameSpec, ModelSpec, Report, Verdict } from "@/lib/engine/types";
+import { env } from "@/lib/env";
+import { NotFound, ValidationError } from "@/lib/errors";
 import { zodDetails } from "@/lib/http";
-import type { Verdict } from "@/lib/engine/types";
+import { getModel, loadVisibleVersion } from "@/lib/models";
+import { readReport } from "@/lib/reports";
+import { readableSpec } from "@/lib/spec-view";
+import type { ModelView, VersionSummary } from "@/lib/types/deposit";
 
 export const DYNAMICS_KINDS = ["replicator", "replicator-mutator", "logit", "brown-von-neumann-nash", "smith"] as const;
 /** "pending": the newest version has no report yet. */
@@ -226,4 +232,72 @@ export async function publicVersionsForSitemap(limit = 50_000): Promise<{ slug: 
     where m.visibility = 'public'
     order by m.slug, v.number limit ${limit}`);
   return rows.map((r) => ({ slug: r.slug, number: r.number, createdAt: new Date(r.created_at), latest: r.latest === 1 }));
+}
+
+// ---------------------------------------------------------------------------
+// One public model version, for the public pages and downloads
+// ---------------------------------------------------------------------------
+
+export interface PublicVersion {
+  model: ModelView;
+  /** The version shown (the newest when no number was asked for). */
+  version: VersionSummary;
+  specText: string;
+  /** The spec as far as the views can draw it; null for an unreadable one. */
+  readable: { spec: ModelSpec; game: GameSpec } | null;
+  /** The server's own stored re-run; null until it has finished. */
+  report: Report | null;
+  /** True when the newest version is shown. */
+  latest: boolean;
+}
+
+/**
+ * A public model's version for anonymous readers. Unknown and private models, and unknown
+ * version numbers, are all the same NotFound: nothing tells them apart. `number` is the path
+ * segment as typed; anything but a positive whole number is unknown.
+ */
+export async function loadPublicVersion(slug: string, number?: string): Promise<PublicVersion> {
+  const model = await getModel(slug, null);
+  // getModel also accepts an internal id; public URLs use the slug only.
+  if (model.slug !== slug) throw new NotFound("model");
+  const newest = model.versions[0];
+  let version = newest;
+  if (number !== undefined) {
+    if (!/^[1-9][0-9]{0,8}$/.test(number)) throw new NotFound("version");
+    version = model.versions.find((v) => v.number === Number(number));
+  }
+  if (version === undefined) throw new NotFound("version");
+  const { version: row } = await loadVisibleVersion(version.id, null);
+  const stored = await readReport(version.id);
+  return {
+    model,
+    version,
+    specText: row.specText,
+    readable: readableSpec(row.specText),
+    report: stored?.report ?? null,
+    latest: version.id === newest?.id,
+  };
+}
+
+/** The absolute URL of a public page, from the app's configured origin. */
+export function publicUrl(pathname: string): string {
+  return `${env.authUrl.replace(/\/+$/, "")}${pathname}`;
+}
+
+export function versionPath(slug: string, number: number): string {
+  return `/models/${encodeURIComponent(slug)}/v/${number}`;
+}
+
+/** The citation facts of a public version (lib/citation.ts renders them). */
+export function citationOf(p: PublicVersion): CitationInput {
+  return {
+    slug: p.model.slug,
+    versionNumber: p.version.number,
+    title: p.version.title,
+    authors: p.model.authors.map((a) => ({ name: a.name })),
+    registeredAt: new Date(p.version.createdAt),
+    specSha256: p.version.specSha256,
+    url: publicUrl(versionPath(p.model.slug, p.version.number)),
+    manuscript: { title: p.model.manuscriptTitle, doi: p.model.doi, year: p.model.year },
+  };
 }

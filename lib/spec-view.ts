@@ -5,7 +5,7 @@
  * also reads as plain text. Pure: no React, no database.
  */
 import { evaluateEntry, PayoffError } from "@/lib/engine/payoffs";
-import type { DynamicsSpec, GameSpec, Parameters, PayoffEntry } from "@/lib/engine/types";
+import type { DynamicsSpec, GameSpec, ModelSpec, Parameters, PayoffEntry } from "@/lib/engine/types";
 
 // ---------------------------------------------------------------------------
 // Formula markup
@@ -234,4 +234,46 @@ export function payoffTable(spec: { parameters?: Parameters; game: GameSpec }, o
     parameters,
     reading: `Each entry gives the payoff to ${p1.name} (first) and to ${p2.name} (second) when ${p1.name} plays the row's strategy and ${p2.name} the column's.`,
   };
+}
+
+// ---------------------------------------------------------------------------
+// Reading a stored spec for display
+// ---------------------------------------------------------------------------
+
+const isStringArray = (v: unknown): v is string[] => Array.isArray(v) && v.every((s) => typeof s === "string");
+const isMatrix = (v: unknown): v is PayoffEntry[][] =>
+  Array.isArray(v) && v.every((row) => Array.isArray(row) && row.every((e) => typeof e === "number" || typeof e === "string"));
+
+/**
+ * The parts of a stored spec the public views draw on, when its game has a drawable shape
+ * (an invalid version may have none); null otherwise. Not a validation: the engine's report says
+ * whether the spec is valid.
+ */
+export function readableSpec(text: string): { spec: ModelSpec; game: GameSpec } | null {
+  let value: unknown;
+  try {
+    value = JSON.parse(text);
+  } catch {
+    return null;
+  }
+  if (typeof value !== "object" || value === null) return null;
+  const spec = value as ModelSpec;
+  const game: unknown = spec.game;
+  if (typeof game !== "object" || game === null) return null;
+  const g = game as Record<string, unknown>;
+  if (g.kind === "symmetric") {
+    if (!isStringArray(g.strategies) || !isMatrix(g.payoffs)) return null;
+    return { spec, game: spec.game };
+  }
+  if (g.kind === "bimatrix") {
+    const pops = g.populations;
+    const payoffs = g.payoffs;
+    if (!Array.isArray(pops) || pops.length !== 2 || !Array.isArray(payoffs) || payoffs.length !== 2) return null;
+    const okPops = pops.every(
+      (p: unknown) => typeof p === "object" && p !== null && typeof (p as { name?: unknown }).name === "string" && isStringArray((p as { strategies?: unknown }).strategies),
+    );
+    if (!okPops || !payoffs.every(isMatrix)) return null;
+    return { spec, game: spec.game };
+  }
+  return null;
 }

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import type { GameSpec } from "@/lib/engine/types";
-import { dynamicsView, formulaText, payoffTable } from "@/lib/spec-view";
+import { dynamicsView, formulaText, payoffTable, readableSpec } from "@/lib/spec-view";
 
 // A contest over a resource of value V at cost C: the hawk-dove table (Maynard Smith 1982, from memory).
 const hawkDove: { parameters: Record<string, number>; game: GameSpec } = {
@@ -118,5 +118,19 @@ describe("dynamicsView", () => {
   it("names both populations for a two-population game", () => {
     const v = dynamicsView({ kind: "replicator" }, bimatrix);
     expect(v.where[0]).toContain("x is the state of Buyers and y that of Sellers");
+  });
+});
+
+describe("readableSpec", () => {
+  it("reads a symmetric and a two-population spec", () => {
+    expect(readableSpec(JSON.stringify(hawkDove))?.game.kind).toBe("symmetric");
+    expect(readableSpec(JSON.stringify({ game: bimatrix }))?.game.kind).toBe("bimatrix");
+  });
+  it("returns null for text that is not JSON or a game it cannot draw", () => {
+    expect(readableSpec("{ nope")).toBeNull();
+    expect(readableSpec("[]")).toBeNull();
+    expect(readableSpec(JSON.stringify({ game: { kind: "symmetric", strategies: ["A", 3], payoffs: [] } }))).toBeNull();
+    expect(readableSpec(JSON.stringify({ game: { kind: "bimatrix", populations: [{ name: "P", strategies: [] }], payoffs: [[], []] } }))).toBeNull();
+    expect(readableSpec(JSON.stringify({ game: { kind: "lottery" } }))).toBeNull();
   });
 });
