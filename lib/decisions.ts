@@ -7,15 +7,18 @@
  * decision may publish it).
  */
 import "server-only";
-import { and, asc, desc, eq, or } from "drizzle-orm";
+import { and, asc, desc, eq, inArray, or } from "drizzle-orm";
 import { z } from "zod";
 import { db } from "@/db/client";
 import { DECISION_OUTCOMES, decision, model, report, user, venue, version, type DecisionOutcome } from "@/db/schema";
-import { recordAudit } from "@/lib/audit";
+import { listAudit, recordAudit } from "@/lib/audit";
+import type { ModelBadgeFacts, VersionBadgeFacts } from "@/lib/badges";
+import type { Report, Verdict } from "@/lib/engine/types";
 import { env } from "@/lib/env";
 import { Conflict, Forbidden, NotFound, ValidationError } from "@/lib/errors";
 import { zodDetails } from "@/lib/http";
 import { sendMail, type OutgoingMail } from "@/lib/mail";
+import { diffSpecs, diffVerdicts, type ReportLike, type SpecDiff, type VerdictDiff } from "@/lib/spec-diff";
 import {
   getVenueById,
   getVenueBySlug,
@@ -278,4 +281,176 @@ export async function latestDecidedVersion(modelId: string): Promise<{
     .orderBy(desc(version.number), desc(decision.createdAt))
     .limit(1);
   return row ?? null;
+}
+
+// ---------------------------------------------------------------------------
+// Badge facts
+// ---------------------------------------------------------------------------
+
+export interface BadgeSource {
+  modelId: string;
+  slug: string;
+  ownerId: string;
+  venueId: string | null;
+  visibility: "private" | "public";
+}
+
+async function badgeModel(slug: string): Promise<BadgeSource | null> {
+  const [m] = await db
+    .select({ modelId: model.id, slug: model.slug, ownerId: model.ownerId, venueId: model.venueId, visibility: model.visibility })
+    .from(model)
+    .where(eq(model.slug, slug))
+    .limit(1);
+  return m ?? null;
+}
+
+async function versionFacts(versionId: string): Promise<{
+  verdict: VersionBadgeFacts["verdict"];
+  counts: VersionBadgeFacts["counts"];
+  decision: DecisionOutcome | null;
+  venueName: string | null;
+}> {
+  const [r] = await db
+    .select({ verdict: report.verdict, confirmed: report.confirmedCount, contradicted: report.contradictedCount, inconclusive: report.inconclusiveCount })
+    .from(report)
+    .where(eq(report.versionId, versionId))
+    .limit(1);
+  const [d] = await db
+    .select({ outcome: decision.outcome, venueName: venue.name })
+    .from(decision)
+    .innerJoin(venue, eq(venue.id, decision.venueId))
+    .where(eq(decision.versionId, versionId))
+    .orderBy(desc(decision.createdAt))
+    .limit(1);
+  return {
+    verdict: r?.verdict ?? null,
+    counts: r === undefined ? null : { confirmed: r.confirmed, contradicted: r.contradicted, inconclusive: r.inconclusive },
+    decision: d?.outcome ?? null,
+    venueName: d?.venueName ?? null,
+  };
+}
+
+/**
+ * What the version badge shows, and whether it can never change again: once the version has
+ * its report and a decision (both append-only), its badge is immutable.
+ */
+export async function versionBadgeSource(
+  slug: string,
+  number: number,
+): Promise<{ model: BadgeSource; facts: VersionBadgeFacts; final: boolean } | null> {
+  const m = await badgeModel(slug);
+  if (m === null) return null;
+  const [v] = await db
+    .select({ id: version.id, number: version.number, specSha256: version.specSha256 })
+    .from(version)
+    .where(and(eq(version.modelId, m.modelId), eq(version.number, number)))
+    .limit(1);
+  if (v === undefined) return null;
+  const f = await versionFacts(v.id);
+  return {
+    model: m,
+    facts: { slug: m.slug, number: v.number, specSha256: v.specSha256, ...f },
+    final: f.verdict !== null && f.decision !== null,
+  };
+}
+
+/** What the model badge shows: its latest decided version (by version number). */
+export async function modelBadgeSource(slug: string): Promise<{ model: BadgeSource; facts: ModelBadgeFacts } | null> {
+  const m = await badgeModel(slug);
+  if (m === null) return null;
+  const latest = await latestDecidedVersion(m.modelId);
+  if (latest === null) return { model: m, facts: { slug: m.slug, latestDecided: null } };
+  const f = await versionFacts(latest.versionId);
+  return {
+    model: m,
+    facts: { slug: m.slug, latestDecided: { number: latest.number, specSha256: latest.specSha256, ...f } },
+  };
+}
+
+// ---------------------------------------------------------------------------
+// Audit trail and comparison of a model (callers check access with loadModelForReview)
+// ---------------------------------------------------------------------------
+
+export interface AuditLine {
+  id: number;
+  at: string;
+  action: string;
+  actor: { id: string; name: string } | null;
+  versionNumber: number | null;
+  venue: { slug: string; name: string } | null;
+  detail: Record<string, unknown>;
+}
+
+/** The model's audit trail, oldest first, with actor names, version numbers and venues. */
+export async function auditTrailForModel(modelId: string, limit = 500): Promise<AuditLine[]> {
+  const entries = await listAudit({ modelId, limit });
+  const userIds = [...new Set(entries.map((e) => e.actorId).filter((x): x is string => x !== null))];
+  const versionIds = [...new Set(entries.map((e) => e.versionId).filter((x): x is string => x !== null))];
+  const venueIds = [...new Set(entries.map((e) => e.venueId).filter((x): x is string => x !== null))];
+  const users = userIds.length === 0 ? [] : await db.select({ id: user.id, name: user.name }).from(user).where(inArray(user.id, userIds));
+  const versions = versionIds.length === 0 ? [] : await db.select({ id: version.id, number: version.number }).from(version).where(inArray(version.id, versionIds));
+  const venues = venueIds.length === 0 ? [] : await db.select({ id: venue.id, slug: venue.slug, name: venue.name }).from(venue).where(inArray(venue.id, venueIds));
+  const userBy = new Map(users.map((u) => [u.id, u]));
+  const versionBy = new Map(versions.map((v) => [v.id, v.number]));
+  const venueBy = new Map(venues.map((v) => [v.id, { slug: v.slug, name: v.name }]));
+  return entries
+    .map((e) => ({
+      id: e.id,
+      at: e.at,
+      action: e.action,
+      actor: e.actorId === null ? null : (userBy.get(e.actorId) ?? { id: e.actorId, name: "(deleted account)" }),
+      versionNumber: e.versionId === null ? null : (versionBy.get(e.versionId) ?? null),
+      venue: e.venueId === null ? null : (venueBy.get(e.venueId) ?? null),
+      detail: e.detail,
+    }))
+    .sort((a, b) => a.id - b.id);
+}
+
+export interface Comparison {
+  from: { number: number; specSha256: string; createdAt: string; verdict: Verdict | null };
+  to: { number: number; specSha256: string; createdAt: string; verdict: Verdict | null };
+  spec: SpecDiff;
+  verdicts: VerdictDiff;
+  /** A side whose stored text is not JSON (cannot happen for stored versions; kept honest). */
+  unreadable: number[];
+}
+
+export const SAME_VERSION_MESSAGE = "Choose two different versions to compare.";
+
+/** Spec and verdict diff between versions `from` and `to` of a model. */
+export async function compareVersions(modelId: string, from: number, to: number): Promise<Comparison> {
+  if (from === to) throw new ValidationError(SAME_VERSION_MESSAGE, [{ path: "/to", message: SAME_VERSION_MESSAGE }]);
+  const rows = await db
+    .select({ id: version.id, number: version.number, specSha256: version.specSha256, specText: version.specText, createdAt: version.createdAt })
+    .from(version)
+    .where(and(eq(version.modelId, modelId), inArray(version.number, [from, to])));
+  const a = rows.find((r) => r.number === from);
+  const b = rows.find((r) => r.number === to);
+  if (a === undefined || b === undefined) throw new NotFound("version", `No version ${a === undefined ? from : to} of this model.`);
+  const reports = await db.select({ versionId: report.versionId, json: report.reportJson }).from(report).where(inArray(report.versionId, [a.id, b.id]));
+  const reportOf = (id: string): ReportLike | null => {
+    const r = reports.find((x) => x.versionId === id);
+    if (r === undefined) return null;
+    const parsed = JSON.parse(r.json) as Report;
+    return { verdict: parsed.verdict, claims: parsed.claims };
+  };
+  const unreadable: number[] = [];
+  const parse = (text: string, n: number): unknown => {
+    try {
+      return JSON.parse(text);
+    } catch {
+      unreadable.push(n);
+      return text;
+    }
+  };
+  const ra = reportOf(a.id);
+  const rb = reportOf(b.id);
+  const d = diffSpecs(parse(a.specText, a.number), parse(b.specText, b.number));
+  return {
+    from: { number: a.number, specSha256: a.specSha256, createdAt: a.createdAt.toISOString(), verdict: ra?.verdict ?? null },
+    to: { number: b.number, specSha256: b.specSha256, createdAt: b.createdAt.toISOString(), verdict: rb?.verdict ?? null },
+    spec: { rows: d.rows, added: d.added, removed: d.removed, identical: d.identical },
+    verdicts: diffVerdicts(ra, rb),
+    unreadable,
+  };
 }

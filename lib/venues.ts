@@ -406,3 +406,35 @@ export function isUniqueViolation(e: unknown): boolean {
   }
   return false;
 }
+
+// ---------------------------------------------------------------------------
+// Review access: who may compare versions and read a model's audit trail
+// ---------------------------------------------------------------------------
+
+export const NOT_REVIEWER_MESSAGE = "Only the model's owner, the editors of its venue and admins may see this.";
+
+export interface ReviewableModel {
+  id: string;
+  slug: string;
+  title: string;
+  ownerId: string;
+  venueId: string | null;
+  visibility: "private" | "public";
+}
+
+/**
+ * The model if `actor` is its owner, an editor of its venue, or an admin. Someone else gets
+ * NotFound for a private model (its existence stays private) and Forbidden for a public one.
+ */
+export async function loadModelForReview(actor: VenueActor, slugOrId: string): Promise<ReviewableModel> {
+  const [m] = await db
+    .select({ id: model.id, slug: model.slug, title: model.title, ownerId: model.ownerId, venueId: model.venueId, visibility: model.visibility })
+    .from(model)
+    .where(sql`${model.slug} = ${slugOrId} or ${model.id} = ${slugOrId}`)
+    .limit(1);
+  if (m === undefined) throw new NotFound("model");
+  if (m.ownerId === actor.id || actor.role === "admin") return m;
+  if (m.venueId !== null && (await isEditorOf(actor.id, m.venueId))) return m;
+  if (m.visibility === "public") throw new Forbidden(NOT_REVIEWER_MESSAGE);
+  throw new NotFound("model");
+}
