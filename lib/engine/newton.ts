@@ -48,7 +48,7 @@ const MAX_LATTICE_DENOMINATOR = 10;
 const EXTRA_STARTS = 64;
 
 export interface RestPointSearchOptions {
-  /** Upper bound on the lattice part of the grid (default 256). */
+  /** Upper bound on the number of grid starts tried after the seeds (default 256; 0: seeds only). */
   maxStarts?: number;
   residualTolerance?: number;
   duplicateDistance?: number;
@@ -100,10 +100,12 @@ function generator(seed: number): () => number {
 }
 
 /**
- * Deterministic starting points for a layout (block sizes, e.g. [n] or [m, k]): the product of
- * the lattices {k/h} of each simplex with the largest h <= 10 whose size is at most maxStarts,
- * then the barycentre, then, when that lattice is coarse (h < 3), 64 interior points from a
- * fixed-seed generator. The same layout always gives the same list.
+ * Deterministic starting points for a layout (block sizes, e.g. [n] or [m, k]), at most
+ * maxStarts of them: the product of the lattices {k/h} of each simplex with the largest
+ * h <= 10 whose size is at most maxStarts, then the barycentre, then, when that lattice is
+ * coarse (h < 3), up to 64 interior points from a fixed-seed generator, while room is left.
+ * maxStarts = 0 gives no starts, 1 the barycentre alone. The same arguments always give the
+ * same list.
  */
 export function gridStarts(layout: number[], maxStarts = 256): Float64Array[] {
   const size = (h: number): number => layout.reduce((p, n) => p * binomial(h + n - 1, n - 1), 1);
@@ -121,10 +123,13 @@ export function gridStarts(layout: number[], maxStarts = 256): Float64Array[] {
   }
   const starts = points.map((p) => Float64Array.from(p));
   const barycentre = Float64Array.from(layout.flatMap((n) => new Array<number>(n).fill(1 / n)));
-  if (!starts.some((s) => s.every((v, i) => v === barycentre[i]))) starts.push(barycentre);
+  if (starts.length < maxStarts && !starts.some((s) => s.every((v, i) => v === barycentre[i]))) {
+    starts.push(barycentre);
+  }
   if (h < 3) {
     const rng = generator(0x5eed);
-    for (let s = 0; s < EXTRA_STARTS; s++) {
+    const extra = Math.min(EXTRA_STARTS, maxStarts - starts.length);
+    for (let s = 0; s < extra; s++) {
       const x = new Float64Array(dim);
       let o = 0;
       for (const n of layout) {

@@ -164,6 +164,11 @@ describe("findRestPoints: order, de-duplication, determinism", () => {
       }
     }
   });
+  it("polishes the seeds alone with maxStarts 0", () => {
+    const found = findRestPoints(field, [2], [Float64Array.from([0.62, 0.38])], new Budget(), { maxStarts: 0 });
+    expect(found).toHaveLength(1);
+    expect(maxNormDistance(found[0] ?? [], [V / C, 1 - V / C])).toBeLessThan(1e-12);
+  });
   it("gives identical results on repeated calls", () => {
     const a = findRestPoints(field, [2], [], new Budget()).map((p) => Array.from(p));
     const b = findRestPoints(field, [2], [], new Budget()).map((p) => Array.from(p));
@@ -181,7 +186,7 @@ describe("gridStarts", () => {
       const starts = gridStarts(layout);
       expect(starts).toEqual(gridStarts(layout));
       expect(starts.length).toBeGreaterThan(1);
-      expect(starts.length).toBeLessThanOrEqual(256 + 1 + 64);
+      expect(starts.length).toBeLessThanOrEqual(256);
       for (const s of starts) {
         let o = 0;
         for (const n of layout) {
@@ -192,6 +197,11 @@ describe("gridStarts", () => {
         }
       }
     }
+  });
+  it("respects a small bound: 0 starts, or the barycentre alone", () => {
+    expect(gridStarts([3], 0)).toEqual([]);
+    expect(gridStarts([2, 3], 1).map((s) => Array.from(s))).toEqual([[1 / 2, 1 / 2, 1 / 3, 1 / 3, 1 / 3]]);
+    expect(gridStarts([24], 30)).toHaveLength(30); // 24 vertices, the barycentre, 5 generated points
   });
   it("uses the lattice k/10 for two strategies, vertices included", () => {
     const starts = gridStarts([2]).map((s) => s[0] ?? NaN);
