@@ -138,9 +138,30 @@ export interface StandaloneSvgInput {
   legend: readonly LegendEntry[];
 }
 
+/** Breaks text into lines of at most `maxChars` characters at spaces (a longer word gets its own line). */
+export function wrapText(text: string, maxChars: number): string[] {
+  const lines: string[] = [];
+  let line = "";
+  for (const word of text.split(/\s+/).filter((w) => w !== "")) {
+    if (line === "") line = word;
+    else if (Array.from(line).length + 1 + Array.from(word).length <= maxChars) line = `${line} ${word}`;
+    else {
+      lines.push(line);
+      line = word;
+    }
+  }
+  if (line !== "") lines.push(line);
+  return lines.length === 0 ? [""] : lines;
+}
+
+const TITLE_FONT = 14;
+const TITLE_LINE = 19;
+
 /** A complete SVG document: XML declaration, namespace, background, title, plot and legend. */
 export function standaloneSvg({ plotSvg, width, height, title, legend }: StandaloneSvgInput): string {
-  const titleHeight = 28;
+  // Bold 14-unit glyphs average about 8.2 units: wrap the title to the drawing's width.
+  const titleLines = wrapText(title, Math.max(10, Math.floor((width - 24) / 8.2)));
+  const titleHeight = 10 + titleLines.length * TITLE_LINE;
   const legendPart = legendMarkup(legend, width, titleHeight + height);
   const total = titleHeight + height + legendPart.height;
   const plot = resolveCssFunctions(plotSvg)
@@ -154,7 +175,9 @@ export function standaloneSvg({ plotSvg, width, height, title, legend }: Standal
     `style="color:${EXPORT_INK};background:${EXPORT_BACKGROUND}">` +
     `<title>${xmlEscape(title)}</title>` +
     `<rect width="100%" height="100%" fill="${EXPORT_BACKGROUND}"/>` +
-    `<text x="12" y="19" font-size="14" font-weight="600">${xmlEscape(title)}</text>` +
+    `<text font-size="${TITLE_FONT}" font-weight="600">` +
+    titleLines.map((l, i) => `<tspan x="12" y="${19 + i * TITLE_LINE}">${xmlEscape(l)}</tspan>`).join("") +
+    `</text>` +
     plot +
     legendPart.markup +
     `</svg>\n`

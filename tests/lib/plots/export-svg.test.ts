@@ -1,5 +1,14 @@
 import { describe, expect, it } from "vitest";
-import { legendMarkup, resolveCssFunctions, standaloneSvg, xmlEscape } from "@/lib/plots/export-svg";
+import { legendMarkup, resolveCssFunctions, standaloneSvg, wrapText, xmlEscape } from "@/lib/plots/export-svg";
+
+describe("wrapText", () => {
+  it("breaks at spaces within the limit and keeps over-long words whole", () => {
+    expect(wrapText("Runs on the simplex of A, B and C", 12)).toEqual(["Runs on the", "simplex of", "A, B and C"]);
+    expect(wrapText("short", 12)).toEqual(["short"]);
+    expect(wrapText("averyveryverylongword x", 5)).toEqual(["averyveryverylongword", "x"]);
+    expect(wrapText("", 5)).toEqual([""]);
+  });
+});
 
 describe("resolveCssFunctions", () => {
   it("replaces var() by its fallback and light-dark() by its light value, nested", () => {
@@ -25,7 +34,7 @@ describe("standaloneSvg", () => {
     '<polyline points="0,0 10,10" style="stroke:var(--color-series-2, light-dark(#c8571b, #f0925a))"/></svg>';
   const file = standaloneSvg({
     plotSvg: plot,
-    width: 100,
+    width: 400,
     height: 50,
     title: "Run <x> & co",
     legend: [
@@ -42,8 +51,13 @@ describe("standaloneSvg", () => {
     expect(file).not.toContain("light-dark(");
     expect(file.trimEnd().endsWith("</svg>")).toBe(true);
   });
+  it("wraps a long title onto more lines and moves the plot down", () => {
+    const long = standaloneSvg({ plotSvg: plot, width: 100, height: 50, title: "Runs on the simplex of Forager, Hoarder and Scrounger", legend: [] });
+    expect(long.match(/<tspan /g)?.length ?? 0).toBeGreaterThan(2);
+    expect(long).not.toContain('<svg x="0" y="29"');
+  });
   it("places the plot below the title and escapes legend text", () => {
-    expect(file).toContain('<svg x="0" y="28" xmlns="http://www.w3.org/2000/svg" width="100" height="50"');
+    expect(file).toContain('<svg x="0" y="29" xmlns="http://www.w3.org/2000/svg" width="100" height="50"');
     expect(file).toContain("&lt;script&gt;alert(1)&lt;/script&gt;");
     expect(file).not.toContain("<script>");
   });
