@@ -61,6 +61,9 @@ function counted(field: VectorField): { field: VectorField; count: () => number 
   };
 }
 
+const WARM_UP_RUNS = 10;
+const TIMED_RUNS = 7;
+
 function median(values: number[]): number {
   const s = [...values].sort((a, b) => a - b);
   return s[Math.floor(s.length / 2)] ?? NaN;
@@ -89,14 +92,15 @@ function runOnce(g: CompiledGame, T: number): { ms: number; evaluations: number;
 }
 
 function reportRun(label: string, g: CompiledGame): void {
-  runOnce(g, 1000); // warm-up (JIT)
-  const runs = [runOnce(g, 1000), runOnce(g, 1000), runOnce(g, 1000)];
+  // the first runs are several times slower while V8 compiles odex and the field
+  for (let k = 0; k < WARM_UP_RUNS; k++) runOnce(g, 1000);
+  const runs = Array.from({ length: TIMED_RUNS }, () => runOnce(g, 1000));
   const ms = median(runs.map((r) => r.ms));
   const r = runs[0];
   if (!r) return;
   const perSecond = r.evaluations / (ms / 1000);
   console.log(
-    `  ${label}: ${ms.toFixed(1)} ms (median of 3 after warm-up), ${r.steps} steps, ` +
+    `  ${label}: ${ms.toFixed(1)} ms (median of ${TIMED_RUNS} after ${WARM_UP_RUNS} warm-up runs), ${r.steps} steps, ` +
       `${r.evaluations} right-hand-side evaluations, ${(perSecond / 1e6).toFixed(2)} million evaluations/s`,
   );
 }
