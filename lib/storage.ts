@@ -140,7 +140,7 @@ function mismatch(name: string, rule: TypeRule): ValidationError {
       ? "a PDF (it does not start with %PDF-)"
       : rule.kind === "zip"
         ? "a ZIP archive (it does not start with PK)"
-        : `${rule.label} text (it is not UTF-8 text without NUL bytes)`;
+        : `${rule.label === "plain text" ? "plain" : rule.label} text (it is not UTF-8 text without NUL bytes)`;
   return new ValidationError(`The content of "${name}" does not match its type: it is not ${what}.`, [
     { path: "/file", message: `Declared ${rule.label} by its name, but the content is not.` },
   ]);
