@@ -8,16 +8,25 @@
  *   [ P J  C ] [v]   [-P F]
  *   [ C^T  0 ] [l] = [  0 ]          (C: one indicator column per population),
  * which is square and nonsingular exactly when P J is invertible on T (Allgower and Georg
- * 1990, Numerical Continuation Methods, ch. 3, for the bordering). Steps are halved until
+ * 1990, Numerical Continuation Methods, for the bordering; from memory). Steps are halved until
  * the residual |P F|_inf decreases (Armijo-type backtracking, Dennis and Schnabel 1983,
  * ch. 6), and each trial point is projected back onto the simplices (Euclidean projection,
  * Held, Wolfe and Crowder 1974). A singular P J (non-isolated or non-hyperbolic points) is
  * regularised by a small multiple of the identity, so the step still moves downhill.
+ *
+ * A start has converged when the residual is small relative to the field's scale and the
+ * Newton correction is negligible; shares that end below 1e-6 are tried at exactly 0.
+ * Near Brown-von Neumann-Nash equilibria the field grows like the square of the distance
+ * and Newton converges only linearly, so such points can be accurate to about 1e-7 rather
+ * than to rounding; their correction is kept as an error estimate and widens the
+ * de-duplication radius (see DUPLICATE_DISTANCE). A grid is a heuristic: it can miss rest
+ * points, which is why callers pass known candidates (the replicator's rest points, which
+ * include every Nash equilibrium) as seeds.
  */
 import type { Budget } from "./budget";
 import type { VectorField } from "./dynamics";
 
-/** A start converges when |P F|_inf <= this times (1 + |J|_inf) (scale of the field). */
+/** Residual test: |P F|_inf <= this times (1 + |J|_inf), the field's scale (row-sum norm). */
 export const REST_POINT_RESIDUAL = 1e-12;
 /**
  * Two rest points closer than this in the max-norm are one. Where convergence was slow (the

@@ -24,7 +24,8 @@ function customField(dim: number, rhs: (x: Float64Array, out: Float64Array) => v
 describe("integrate: published closed forms and invariants", () => {
   it("donation game: the cooperators' share follows x(t) = x0 e^{-ct} / (1 - x0 + x0 e^{-ct}) at samples and at arbitrary query times", () => {
     // Donation game (benefit b, cost c): cooperation pays -c relative to defection against
-    // anyone, so x' = -c x (1 - x), a logistic equation (Nowak 2006, Evolutionary Dynamics, ch. 4; Sigmund 2010, The Calculus of Selfishness, ch. 1).
+    // anyone, so x' = -c x (1 - x), a logistic equation (Nowak 2006, Evolutionary Dynamics; Sigmund 2010, The Calculus of Selfishness; from memory).
+    // The closed form is that of the logistic equation.
     const b = 3;
     const c = 0.8;
     const game = symmetricGame([
@@ -77,7 +78,7 @@ describe("integrate: published closed forms and invariants", () => {
     asked.forEach((t, i) => expect(result.queries[i]?.[0] ?? NaN).toBeCloseTo(exact(t), 9));
   });
 
-  it("zero-sum rock-paper-scissors: x1 x2 x3 is conserved along orbits over T = 1000 (Hofbauer and Sigmund 1998, section 7.7)", () => {
+  it("zero-sum rock-paper-scissors: x1 x2 x3 is conserved along orbits over T = 1000 (Hofbauer and Sigmund 1998, Evolutionary Games and Population Dynamics)", () => {
     const rps = symmetricGame([
       [0, -1, 1],
       [1, 0, -1],
@@ -100,7 +101,7 @@ describe("integrate: published closed forms and invariants", () => {
     expect(Math.max(...result.states.map((s) => maxNormDistance(s, x0)))).toBeGreaterThan(0.1);
   });
 
-  it("generalized rock-paper-scissors with win 2 > loss 1: x1 x2 x3 increases towards 1/27 (Hofbauer and Sigmund 1998, section 7.7)", () => {
+  it("generalized rock-paper-scissors with win 2 > loss 1: x1 x2 x3 increases towards 1/27 (Hofbauer and Sigmund 1998, Evolutionary Games and Population Dynamics)", () => {
     const rps = symmetricGame([
       [0, -1, 2],
       [2, 0, -1],

@@ -17,7 +17,7 @@ function expectRelative(a: number, b: number, rel: number): void {
  * Absorption probabilities of the same birth-death chain found a second way: solving the
  * linear system x_i = T+_i x_{i+1} + T-_i x_{i-1} + (1 - T+_i - T-_i) x_i, x_0 = 0, x_N = 1
  * by the tridiagonal (Thomas) algorithm (Karlin and Taylor 1975, A First Course in
- * Stochastic Processes, ch. 4; transition probabilities as in Nowak et al. 2004).
+ * Stochastic Processes; transition probabilities as in Nowak et al. 2004).
  */
 function absorptionBySolve(a: number, b: number, c: number, d: number, N: number, w: number): number {
   const lower: number[] = [];
@@ -48,7 +48,7 @@ function absorptionBySolve(a: number, b: number, c: number, d: number, N: number
 }
 
 describe("fixationProbability: published closed forms", () => {
-  it("is 1/N under neutrality, w = 0 (Nowak 2006, Evolutionary Dynamics, ch. 6)", () => {
+  it("is 1/N under neutrality, w = 0 (Nowak 2006, Evolutionary Dynamics)", () => {
     const A = matrix([
       [3, 0],
       [5, 1],
@@ -58,7 +58,7 @@ describe("fixationProbability: published closed forms", () => {
     }
   });
 
-  it("is (1 - 1/r) / (1 - 1/r^N) under constant fitness r (Nowak 2006, Evolutionary Dynamics, ch. 6)", () => {
+  it("is (1 - 1/r) / (1 - 1/r^N) under constant fitness r (Nowak 2006, Evolutionary Dynamics)", () => {
     // mutant earns r and resident 1 against everyone: fitness r and 1 at w = 1,
     // and 1 + w (r - 1) against 1 at intensity w
     for (const r of [0.9, 1.05, 2]) {

@@ -40,7 +40,7 @@ describe("findRestPoints: published rest points", () => {
     ]);
   });
 
-  it("BNN and Smith: rest points are exactly the Nash equilibria (Sandholm 2010, Population Games and Evolutionary Dynamics, ch. 5)", () => {
+  it("BNN and Smith: rest points are exactly the Nash equilibria (Nash stationarity; Sandholm 2010, Population Games and Evolutionary Dynamics)", () => {
     // hawk-dove: the only Nash equilibrium is the mixed one
     for (const kind of ["brown-von-neumann-nash", "smith"] as const) {
       const field = vectorField(symmetricGame(hawkDove), { kind });
@@ -113,7 +113,7 @@ describe("findRestPoints: published rest points", () => {
     }
   });
 
-  it("matching pennies, two populations: the four corners and the centre (Hofbauer and Sigmund 1998, ch. 10)", () => {
+  it("matching pennies, two populations: the four corners and the centre (Hofbauer and Sigmund 1998, Evolutionary Games and Population Dynamics)", () => {
     const field = vectorField(
       bimatrixGame(
         [
@@ -136,7 +136,7 @@ describe("findRestPoints: published rest points", () => {
     ]);
   });
 
-  it("zero-sum rock-paper-scissors: the centre is found although it is non-hyperbolic (Hofbauer and Sigmund 1998, section 7.7)", () => {
+  it("zero-sum rock-paper-scissors: the centre is found although it is non-hyperbolic (Hofbauer and Sigmund 1998, Evolutionary Games and Population Dynamics)", () => {
     const field = vectorField(
       symmetricGame([
         [0, -1, 1],
