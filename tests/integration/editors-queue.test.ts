@@ -144,7 +144,7 @@ describe("listQueue", () => {
   });
 
   it("summarizes venues with editors and the number awaiting a decision", async () => {
-    const [s] = await summarizeVenues([venue]);
+    const [s] = await summarizeVenues([{ ...venue, description: "" }]);
     expect(s?.models).toBe(5);
     expect(s?.awaitingDecision).toBe(4);
     expect(s?.editors.map((e) => e.name)).toEqual(["Cleo"]);
