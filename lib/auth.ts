@@ -21,6 +21,9 @@ import { passwordResetMail, sendMail, verificationMail } from "@/lib/mail";
 import { MAILBOX_COOKIE, MAILBOX_MAX_AGE_SECONDS, signMailbox } from "@/lib/mailbox";
 import { findUserIdByEmail } from "@/lib/users";
 
+/** Where a confirmation link lands once better-auth has confirmed the address. */
+export const VERIFIED_PATH = "/verify-email?confirmed=1";
+
 const DEV_SECRET = "restpoint-development-secret-not-for-production";
 // `next build` collects page data with NODE_ENV=production but without the deployment's secrets.
 if (env.isProduction && !env.isBuild && env.authSecret === DEV_SECRET) {
@@ -80,7 +83,10 @@ export const auth = betterAuth({
     autoSignInAfterVerification: false,
     expiresIn: 60 * 60,
     async sendVerificationEmail({ user, url }) {
-      await sendMail(verificationMail(user.email, user.name, url));
+      // Every confirmation link (after sign-up, a sign-in attempt or a resend) lands on the same page.
+      const link = new URL(url);
+      link.searchParams.set("callbackURL", VERIFIED_PATH);
+      await sendMail(verificationMail(user.email, user.name, link.toString()));
     },
   },
   session: {
