@@ -18,16 +18,16 @@ export interface PlotFigureProps {
   withRun: boolean;
   fileStem: string;
   /** Tailwind max-width class of the drawing (a square plot need not be as wide as a time series). */
-  maxWidth?: "max-w-xl" | "max-w-3xl";
+  maxWidth?: "max-w-xl" | "max-w-2xl";
   /** Sentences shown under the drawing (runs that stopped early, states that could not be drawn). */
   notes?: readonly string[];
   children: ReactNode;
 }
 
 export function PlotFigure(props: PlotFigureProps): ReactNode {
-  const { title, summary, width, height, legend, columns, blocks, withRun, fileStem, notes = [], maxWidth = "max-w-3xl", children } = props;
+  const { title, summary, width, height, legend, columns, blocks, withRun, fileStem, notes = [], maxWidth = "max-w-2xl", children } = props;
   return (
-    <figure className="my-4 min-w-0 [color-scheme:light] dark:[color-scheme:dark]">
+    <figure className="my-4 min-w-0">
       <figcaption className="mb-1 font-semibold">{title}</figcaption>
       <svg
         data-plot-svg=""

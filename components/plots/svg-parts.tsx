@@ -6,8 +6,11 @@ import { GRID_COLOR, seriesStyle } from "@/lib/plots/style";
 import { markerPath, pointSymbol, type PointSymbol } from "@/lib/plots/symbols";
 import type { Point } from "@/lib/plots/downsample";
 
-/** Background colour used to outline markers so they stay visible where lines cross. */
-export const SURFACE = "var(--color-plot-surface, light-dark(#ffffff, #15181c))";
+/**
+ * Background colour used to outline markers so they stay visible where lines cross: the app's
+ * surface colour, else white or near-black by the inherited colour scheme.
+ */
+export const SURFACE = "var(--rp-surface, light-dark(#ffffff, #15181c))";
 
 export const TICK_FONT = 12;
 export const LABEL_FONT = 13;

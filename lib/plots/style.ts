@@ -5,7 +5,8 @@
  *
  * Colours are CSS values `var(--color-series-N, light-dark(<light>, <dark>))`: the app's palette
  * may define `--color-series-1` .. `--color-series-12`; otherwise the fallback pair follows the
- * element's colour scheme. The SVG export replaces each with its light fallback.
+ * inherited `color-scheme` (the app's root sets it for light and dark). The SVG export replaces
+ * each with its light fallback.
  */
 
 export type MarkerShape = "circle" | "square" | "triangle" | "diamond";
