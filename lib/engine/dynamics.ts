@@ -118,15 +118,14 @@ const replicator: Kernel = {
 };
 
 function replicatorMutator(mu: number): Kernel {
-  // h_i = sum_j q_ji x_j f_j = a x_i f_i + b sum_j x_j f_j with a = q_ii - b, b = mu/(n-1).
-  const coefficients = (n: number): [number, number] => {
-    if (n <= 1) return [1, 0];
-    const b = mu / (n - 1);
-    return [1 - mu - b, b];
-  };
+  // h_i = sum_j q_ji x_j f_j = a x_i f_i + b sum_j x_j f_j with b = mu/(n-1), a = q_ii - b
+  // (one strategy: q = 1, so a = 1 and b = 0); scalars, so that no call allocates.
+  const spread = (n: number): number => (n <= 1 ? 0 : mu / (n - 1));
+  const own = (n: number): number => (n <= 1 ? 1 : 1 - mu - mu / (n - 1));
   return {
     rhs(x, o, n, f, out) {
-      const [a, b] = coefficients(n);
+      const a = own(n);
+      const b = spread(n);
       const T = dotOf(x, o, f, n);
       const phi = T / sumOf(x, o, n);
       for (let i = 0; i < n; i++) {
@@ -135,7 +134,8 @@ function replicatorMutator(mu: number): Kernel {
       }
     },
     partials(x, o, n, f, D, E) {
-      const [a, b] = coefficients(n);
+      const a = own(n);
+      const b = spread(n);
       const S = sumOf(x, o, n);
       const phi = dotOf(x, o, f, n) / S;
       for (let i = 0; i < n; i++) {
