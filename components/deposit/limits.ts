@@ -2,8 +2,9 @@
  * Upload limits as the client states and checks them before sending. The server checks the
  * same numbers again (it must; a script does not run this code).
  */
-export const SPEC_MAX_BYTES = 1024 * 1024;
-export const SUPPLEMENT_MAX_BYTES = 50 * 1024 * 1024;
+// The same numbers as lib/storage.ts (server-only, so not importable here); a test keeps them equal.
+export const SPEC_MAX_BYTES = 1_000_000;
+export const SUPPLEMENT_MAX_BYTES = 50_000_000;
 
 /** Uppy matches either an extension or a media type per entry. */
 export const SPEC_ACCEPT = [".json", "application/json"];
