@@ -3,6 +3,7 @@
 import { useState } from "react";
 import { useSWRConfig } from "swr";
 import { toApiError } from "./api-client";
+import { filesKey } from "./FileList";
 import { SUPPLEMENT_ACCEPT, SUPPLEMENT_MAX_BYTES, SUPPLEMENT_NOTE } from "./limits";
 import { UploadWidget, type UploadOutcome } from "./UploadWidget";
 
@@ -12,7 +13,7 @@ interface Line {
   text: string;
 }
 
-export function SupplementUpload({ slug, number, filesKey }: { slug: string; number: number; filesKey: string }) {
+export function SupplementUpload({ slug, number }: { slug: string; number: number }) {
   const [lines, setLines] = useState<Line[]>([]);
   const { mutate } = useSWRConfig();
 
@@ -24,7 +25,7 @@ export function SupplementUpload({ slug, number, filesKey }: { slug: string; num
         ? "did not reach the server; check the connection and try again."
         : `was not stored: ${toApiError(status, body).message}`;
     setLines((prev) => [{ fileName, ok, text }, ...prev].slice(0, 10));
-    if (ok) void mutate(filesKey);
+    if (ok) void mutate(filesKey(slug, number));
   }
 
   return (
