@@ -144,6 +144,41 @@ describe("vectorField Jacobians agree with central finite differences", () => {
     }
   });
 
+  it("two-population replicator at an interior rest point: the own-population blocks of the Jacobian vanish, so the spectrum is symmetric about 0 and the point is never asymptotically stable (Hofbauer and Sigmund 1998, from memory)", () => {
+    // Games built around a chosen interior equilibrium (x*, y*): A = R - (R y*) 1^T gives A y* = 0
+    // (all of population 1's strategies earn the same), likewise B x* = 0.
+    const m = 3;
+    const k = 4;
+    const xs = [0.2, 0.5, 0.3];
+    const ys = [0.1, 0.4, 0.3, 0.2];
+    const R = randomMatrix(rng, m, k);
+    const Q = randomMatrix(rng, k, m);
+    const P1 = R.map((row) => {
+      const ry = row.reduce((s, v, j) => s + v * (ys[j] ?? 0), 0);
+      return row.map((v) => v - ry);
+    });
+    const P2 = Q.map((row) => {
+      const qx = row.reduce((s, v, i) => s + v * (xs[i] ?? 0), 0);
+      return row.map((v) => v - qx);
+    });
+    const field = vectorField(bimatrixGame(P1, P2), { kind: "replicator" });
+    const point = [...xs, ...ys];
+    expect(Math.max(...evaluate(field, point).map(Math.abs))).toBeLessThan(1e-15);
+    const J = jacobianOf(field, point);
+    const d = m + k;
+    let ownBlocks = 0;
+    let coupling = 0;
+    for (let i = 0; i < d; i++) {
+      for (let j = 0; j < d; j++) {
+        const v = Math.abs(J[i * d + j] ?? 0);
+        if (i < m === j < m) ownBlocks = Math.max(ownBlocks, v);
+        else coupling = Math.max(coupling, v);
+      }
+    }
+    expect(ownBlocks).toBeLessThan(1e-15);
+    expect(coupling).toBeGreaterThan(0.01);
+  });
+
   it("replicator Jacobian maps into the tangent space: every column sums to 0", () => {
     const field = vectorField(symmetricGame(randomMatrix(rng, 4, 4)), { kind: "replicator" });
     const J = jacobianOf(field, randomSimplexPoint(rng, 4));
