@@ -5,7 +5,7 @@ import { fileURLToPath } from "node:url";
 import { parentPort, workerData } from "node:worker_threads";
 import { register } from "tsx/esm/api";
 
-register({ tsconfig: fileURLToPath(new URL("../../tsconfig.json", import.meta.url)) });
+register({ tsconfig: fileURLToPath(new URL("./tsconfig.engine.json", import.meta.url)) });
 
 const taskModule = typeof workerData?.taskModule === "string" ? workerData.taskModule : fileURLToPath(new URL("./engine-task.ts", import.meta.url));
 const { runTask } = await import(taskModule);

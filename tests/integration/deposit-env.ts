@@ -14,3 +14,5 @@ process.env.DATA_DIR = testDir;
 process.env.DATABASE_URL = `file:${databaseFile}`;
 process.env.UPLOADS_DIR = uploadsDir;
 process.env.RESTPOINT_INLINE_WORKER = "0";
+// The fake SMTP server of each process (this one and spawned workers) takes a free port.
+process.env.FAKE_SMTP_PORT = "0";
