@@ -17,7 +17,7 @@ export const MAX_INPUT_BYTES = 1_000_000;
 /** States must sum to 1 within this. */
 export const STATE_SUM_TOLERANCE = 1e-9;
 
-const ajv = new Ajv2020({ allErrors: true, strict: true, discriminator: true });
+const ajv = new Ajv2020({ allErrors: true, strict: true, allowUnionTypes: true, discriminator: true });
 addFormats(ajv);
 const validateSchema = ajv.compile(schema);
 
@@ -77,6 +77,7 @@ function describe(e: ErrorObject, root: unknown): SpecError {
     case "enum":
       return { path, message: `${subj} must be one of ${(p.allowedValues as unknown[]).map((v) => JSON.stringify(v)).join(", ")}.` };
     case "type": {
+      if (/^\/game\/payoffs(\/\d+){2,3}$/.test(path)) return { path, message: "A payoff must be a number or an expression string over the parameters." };
       const t = String(p.type);
       const word = t === "integer" ? "a whole number" : t === "array" ? "a list" : t === "object" ? "an object" : `a ${t}`;
       return { path, message: `${subj} must be ${word}.` };
@@ -116,7 +117,9 @@ function describe(e: ErrorObject, root: unknown): SpecError {
     case "maxLength": {
       const limit = Number(p.limit);
       const len = typeof here === "string" ? here.length : 0;
-      if (e.keyword === "minLength") return { path, message: `${subj} must not be empty.` };
+      const payoff = /^\/game\/payoffs(\/\d+){2,3}$/.test(path);
+      if (e.keyword === "minLength") return { path, message: payoff ? "A payoff expression must not be empty." : `${subj} must not be empty.` };
+      if (payoff) return { path, message: `The expression is ${len} characters long; payoff expressions are limited to ${limit} characters.` };
       return { path, message: `${subj} is ${len} characters long; at most ${limit} are allowed.` };
     }
     case "pattern": {
@@ -135,36 +138,25 @@ function describe(e: ErrorObject, root: unknown): SpecError {
       return { path, message: `${subj} may have at most ${String(p.limit)} entries.` };
     case "format":
       return { path, message: `${JSON.stringify(here)} is not a valid web address.` };
-    case "oneOf":
-    case "anyOf": {
-      if (e.schemaPath.includes("payoffEntry")) {
-        if (typeof here === "string" && here.length > 500) {
-          return { path, message: `The expression is ${here.length} characters long; payoff expressions are limited to 500 characters.` };
-        }
-        if (here === "") return { path, message: "A payoff expression must not be empty." };
-        return { path, message: "A payoff must be a number or an expression string over the parameters." };
-      }
-      if (e.schemaPath.includes("state")) {
-        return { path, message: "A state must be a list of shares in strategy order (each between 0 and 1) or, for a two-population game, a pair of such lists." };
-      }
-      return { path, message: `${subj} does not match any of the allowed forms.` };
-    }
     default:
       return { path, message: `${subj}: ${e.message ?? "is not valid"}.` };
   }
 }
 
 /**
- * Removes errors that only explain why each alternative of a oneOf failed (the oneOf error
- * itself says it in one sentence), and drops ajv's duplicate of a propertyNames failure.
+ * Drops ajv's duplicates: the pattern error behind a propertyNames failure, the type or
+ * required error of a `kind` that the discriminator error already explains, and the
+ * summary of an if/then/else whose branch errors are listed.
  */
 function prune(errors: ErrorObject[]): ErrorObject[] {
-  const ones = errors.filter((e) => e.keyword === "oneOf" || e.keyword === "anyOf");
   const names = errors.filter((e) => e.keyword === "propertyNames");
+  const tags = errors.filter((e) => e.keyword === "discriminator");
   return errors.filter((e) => {
+    if (e.keyword === "if") return false;
     if (e.keyword === "pattern" && e.schemaPath.includes("propertyNames") && names.some((n) => n.instancePath === e.instancePath)) return false;
-    if (e.keyword === "required" && String((e.params as Record<string, unknown>).missingProperty) === "kind" && errors.some((d) => d.keyword === "discriminator" && d.instancePath === e.instancePath)) return false;
-    return !ones.some((o) => o !== e && e.schemaPath.startsWith(`${o.schemaPath}/`) && e.instancePath.startsWith(o.instancePath));
+    if (e.keyword === "required" && String((e.params as Record<string, unknown>).missingProperty) === "kind" && tags.some((d) => d.instancePath === e.instancePath)) return false;
+    if (e.keyword === "type" && tags.some((d) => e.instancePath === `${d.instancePath}/kind`)) return false;
+    return true;
   });
 }
 
@@ -219,7 +211,7 @@ function checkState(state: unknown, path: string, game: GameSpec, out: SpecError
   sums(y, `${path}/1`, game.populations[1].strategies.length, `The state of ${game.populations[1].name}`);
 }
 
-function checkMatrix(rows: unknown[], path: string, r: number, c: number, what: string, out: SpecError[]): boolean {
+function checkMatrix(rows: unknown[], path: string, r: number, c: number, what: string, unit: string, out: SpecError[]): boolean {
   if (rows.length !== r) {
     out.push({ path, message: `${what} must have ${r} rows (one per strategy); it has ${rows.length}.` });
     return false;
@@ -227,7 +219,7 @@ function checkMatrix(rows: unknown[], path: string, r: number, c: number, what: 
   let ok = true;
   rows.forEach((row, i) => {
     if (Array.isArray(row) && row.length !== c) {
-      out.push({ path: `${path}/${i}`, message: `Row ${i + 1} of ${what.charAt(0).toLowerCase()}${what.slice(1)} must have ${c} entries (one per ${c === r ? "strategy" : "opposing strategy"}); it has ${row.length}.` });
+      out.push({ path: `${path}/${i}`, message: `Row ${i + 1} of ${what.charAt(0).toLowerCase()}${what.slice(1)} must have ${c} entries (one per ${unit}); it has ${row.length}.` });
       ok = false;
     }
   });
@@ -246,12 +238,12 @@ function semanticErrors(spec: ModelSpec): SpecError[] {
   let shapesOk: boolean;
   if (game.kind === "symmetric") {
     const n = game.strategies.length;
-    shapesOk = checkMatrix(game.payoffs, "/game/payoffs", n, n, "The payoff matrix", out);
+    shapesOk = checkMatrix(game.payoffs, "/game/payoffs", n, n, "The payoff matrix", "strategy", out);
   } else {
     const m = game.populations[0].strategies.length;
     const k = game.populations[1].strategies.length;
-    const a = checkMatrix(game.payoffs[0], "/game/payoffs/0", m, k, `The payoff matrix of ${game.populations[0].name}`, out);
-    const b = checkMatrix(game.payoffs[1], "/game/payoffs/1", k, m, `The payoff matrix of ${game.populations[1].name}`, out);
+    const a = checkMatrix(game.payoffs[0], "/game/payoffs/0", m, k, `The payoff matrix of ${game.populations[0].name}`, `strategy of ${game.populations[1].name}`, out);
+    const b = checkMatrix(game.payoffs[1], "/game/payoffs/1", k, m, `The payoff matrix of ${game.populations[1].name}`, `strategy of ${game.populations[0].name}`, out);
     shapesOk = a && b;
   }
 

@@ -68,6 +68,14 @@ function invalidReport(sha: string, errors: SpecError[]): Report {
   };
 }
 
+/**
+ * An invalid report for input that never became a JSON value (unreadable file, bytes that
+ * are not UTF-8): specSha256 is the SHA-256 of the raw bytes as given.
+ */
+export function refusedInputReport(raw: string | Uint8Array, message: string): Report {
+  return invalidReport(sha256Hex(raw), [{ path: "", message }]);
+}
+
 function verdictOf(claims: ClaimResult[]): Verdict {
   if (claims.some((c) => c.status === "contradicted")) return "contradicted";
   if (claims.some((c) => c.status === "inconclusive")) return "inconclusive";
