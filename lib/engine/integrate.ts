@@ -8,7 +8,7 @@
  * that covers them, so they carry the integrator's own accuracy rather than an
  * interpolation between samples. Every accepted step is charged to the run's Budget.
  */
-import { Solver } from "odex";
+import { Outcome, Solver } from "odex";
 import { BudgetExceeded, type Budget } from "./budget";
 import type { VectorField } from "./dynamics";
 
@@ -17,12 +17,6 @@ export const STATE_SPACE_SLACK = 1e-9;
 
 /** odex's own step cap; the Budget stops runs long before it (an integration to T = 1e6 needs far fewer). */
 const SOLVER_MAX_STEPS = 1_000_000_000;
-
-/**
- * odex's Outcome.Converged. The enum is not imported: Node's ES-module loader cannot see it
- * among the package's CommonJS exports (only Solver), so its value is written here.
- */
-const CONVERGED = 0;
 
 /** Wall-clock check every this many right-hand-side evaluations (between step charges). */
 const TIME_CHECK_EVERY = 1024;
@@ -225,7 +219,7 @@ export function integrate(field: VectorField, x0: Float64Array, opts: Integratio
     stats: { steps, rhsEvaluations: evaluations },
   });
 
-  let outcome: number;
+  let outcome: Outcome;
   let final: Float64Array;
   try {
     const result = solver.solve(derivative, 0, Array.from(x0), T, (nr, _xOld, x, y, dense) => {
@@ -255,7 +249,7 @@ export function integrate(field: VectorField, x0: Float64Array, opts: Integratio
     if (e instanceof RunFailure) return fail(e.kind, e.message);
     return fail("integrator", `the integrator failed: ${e instanceof Error ? e.message : String(e)}`);
   }
-  if (outcome !== CONVERGED) {
+  if (outcome !== Outcome.Converged) {
     return fail("integrator", `the integrator stopped at t = ${show(reached)} of ${show(T)} without reaching the end`);
   }
   try {
