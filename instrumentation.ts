@@ -28,5 +28,6 @@ export async function register(): Promise<void> {
 
   // ---- Background work: the inline verification worker starts here. ----
   // (lib/worker exposes startInlineWorker(); it honours env.RESTPOINT_INLINE_WORKER.)
+  (await import("@/lib/worker")).startInlineWorker();
   // ---- end of background work ----
 }

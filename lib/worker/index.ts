@@ -3,13 +3,19 @@
  * server start (unless RESTPOINT_INLINE_WORKER=0, when `npm run worker` processes do the work).
  */
 import "server-only";
+import { env } from "@/lib/env";
 import { mailAuthor } from "./notify";
 import { VerificationWorker, type WorkerOptions } from "./loop";
 
 const slot = globalThis as unknown as { __restpointWorker?: VerificationWorker };
 
-/** Starts the one in-process worker (idempotent: a hot reload does not start a second). */
-export function startInlineWorker(options: WorkerOptions = {}): VerificationWorker {
+/**
+ * Starts the one in-process worker (idempotent: a hot reload does not start a second).
+ * Returns null, starting nothing, when RESTPOINT_INLINE_WORKER=0 leaves the work to
+ * `npm run worker` processes.
+ */
+export function startInlineWorker(options: WorkerOptions = {}): VerificationWorker | null {
+  if (env.RESTPOINT_INLINE_WORKER === "0") return null;
   if (slot.__restpointWorker === undefined) {
     const worker = new VerificationWorker({ notify: mailAuthor, ...options });
     worker.start();
