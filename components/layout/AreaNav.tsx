@@ -14,7 +14,11 @@ export interface NavEntry {
 
 const ALL: readonly Role[] = ["author", "editor", "admin"];
 
-export const WORKSPACE_NAV: NavEntry[] = [{ href: "/workspace", label: "Overview", roles: ALL }];
+export const WORKSPACE_NAV: NavEntry[] = [
+  { href: "/workspace", label: "Overview", roles: ALL },
+  { href: "/workspace/models", label: "Your models", roles: ALL },
+  { href: "/workspace/settings/tokens", label: "API tokens", roles: ALL },
+];
 
 export const ADMIN_NAV: NavEntry[] = [
   { href: "/admin", label: "Overview", roles: ["admin"] },

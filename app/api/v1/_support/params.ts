@@ -9,3 +9,6 @@ export function versionNumber(segment: string): number {
 
 /** Route files may export handlers only, so their sentences live here (and tests import them). */
 export const UNSUPPORTED_SPEC_TYPE_MESSAGE = "Send the specification as application/json, or as one file in multipart/form-data.";
+
+export const TOKEN_FROM_TOKEN_MESSAGE =
+  "API tokens are created in the browser, in your settings; a token cannot create further tokens.";
