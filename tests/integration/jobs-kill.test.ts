@@ -48,6 +48,14 @@ afterAll(() => {
   for (const c of children) if (c.exitCode === null && c.signalCode === null) c.kill("SIGKILL");
 });
 
+describe("the worker command", () => {
+  it("refuses a malformed option with a sentence and exit status 64", async () => {
+    const w = startWorker(["--lease-ms", "soon"]);
+    expect(await w.exited).toBe(64);
+    expect(w.output()).toContain('--lease-ms takes a whole number of milliseconds, not "soon".');
+  }, 60_000);
+});
+
 describe("a worker killed mid-run", () => {
   it("leaves its job to be claimed again after the lease expires, and another worker finishes it", async () => {
     const owner = await makeUser("Kill");

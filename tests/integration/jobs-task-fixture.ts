@@ -7,6 +7,7 @@ import { REPORT_FORMAT, type Report } from "@/lib/engine/types";
 import type { EngineTask } from "@/lib/worker/types";
 
 export async function runTask(task: EngineTask): Promise<Report> {
+  const startedAt = Date.now();
   if (task.specText === "throw") throw new Error("the fixture engine refused this spec");
   if (task.specText === "spin") for (;;) { /* never returns: the pool's wall-clock guard must stop it */ }
   if (task.specText === "exit") process.exit(3);
@@ -19,5 +20,6 @@ export async function runTask(task: EngineTask): Promise<Report> {
     errors: [],
     claims: [{ id: "c1", kind: "rest-point", status: "confirmed", message: "fixture", deviation: 0 }],
     experiments: [],
+    notes: [`started ${startedAt}`],
   };
 }
