@@ -62,7 +62,8 @@ export const decisionInputSchema = z.object({
   /** The venue deciding; defaults to the venue the model entry names. */
   venue: z.string().trim().min(1).optional(),
 });
-export type DecisionInput = z.input<typeof decisionInputSchema>;
+/** Anything: a JSON body or form fields; recordDecision checks it with decisionInputSchema. */
+export type DecisionInput = unknown;
 
 export const OWN_MODEL_MESSAGE = "You cannot decide on your own model; another editor of the venue has to.";
 export const NO_VENUE_DECISION_MESSAGE = "This model is not submitted to any venue.";

@@ -220,7 +220,7 @@ describe("recordDecision", () => {
     expect(empty).toBeInstanceOf(ValidationError);
     expect((empty as ValidationError).problems).toEqual([{ path: "/comment", message: "Write a comment for the authors." }]);
     const badOutcome = await rejects(
-      recordDecision(as(editor), { model: m.slug, number: 1 }, { outcome: "accepted" as "verified", comment: "x" }),
+      recordDecision(as(editor), { model: m.slug, number: 1 }, { outcome: "accepted", comment: "x" }),
     );
     expect((badOutcome as ValidationError).problems).toEqual([{ path: "/outcome", message: "Choose verified, changes-requested or declined." }]);
     expect(await rejects(recordDecision(as(editor), { model: m.slug, number: 1 }, { outcome: "declined", comment: "x", venue: "no-such" }))).toBeInstanceOf(NotFound);
