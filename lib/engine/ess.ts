@@ -18,6 +18,7 @@
  */
 import { solveInPlace, symmetricEigenvalues } from "./linalg";
 import { BEST_REPLY_TOLERANCE, payoffScale, symmetricNash } from "./nash";
+import { singularFace } from "./restpoints";
 
 /**
  * Quadratic-form tolerance, relative to the payoff scale: a form value or eigenvalue within
@@ -143,6 +144,9 @@ export function essSymmetric(A: Float64Array, n: number, x: ArrayLike<number>, n
 function maxOnSimplex(C: Float64Array, t: number): { value: number | null } {
   let best = -Infinity;
   let degenerate = false;
+  let scale = 0;
+  for (let i = 0; i < C.length; i++) scale = Math.max(scale, Math.abs(C[i] ?? 0));
+  const tol = 1e-12 * Math.max(1, scale);
   for (let mask = 1; mask < 2 ** t; mask++) {
     const J: number[] = [];
     for (let i = 0; i < t; i++) if ((mask >>> i) & 1) J.push(i);
@@ -157,13 +161,19 @@ function maxOnSimplex(C: Float64Array, t: number): { value: number | null } {
       M[(d - 1) * d + r] = 1;
     });
     b[d - 1] = 1;
-    if (!solveInPlace(M, b, d, 1e-13)) {
-      degenerate = true;
+    const M2 = M.slice();
+    const b2 = b.slice();
+    if (solveInPlace(M2, b2, d, tol)) {
+      let ok = true;
+      for (let r = 0; r < J.length; r++) if ((b2[r] ?? 0) <= 0) ok = false;
+      if (ok) best = Math.max(best, b2[d - 1] ?? -Infinity);
       continue;
     }
-    let ok = true;
-    for (let r = 0; r < J.length; r++) if ((b[r] ?? 0) <= 0) ok = false;
-    if (ok) best = Math.max(best, b[d - 1] ?? -Infinity);
+    // Singular face: on a segment of stationary points the value (the last unknown) is
+    // constant, since w.Cw = mu * sum(w) there; larger solution sets are not resolved.
+    const face = singularFace(M, b, d, d, J.length, tol);
+    if (face.kind === "point" || face.kind === "continuum") best = Math.max(best, face.last);
+    else if (face.kind === "undecided") degenerate = true;
   }
   if (degenerate && best < 0) return { value: null };
   return { value: best };

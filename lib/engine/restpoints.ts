@@ -51,20 +51,21 @@ function scaleOf(...mats: Float64Array[]): number {
   return s > 0 ? s : 1;
 }
 
-type Face = { kind: "none" } | { kind: "point"; x: Float64Array } | { kind: "continuum" } | { kind: "undecided" };
+/** Solution set of a face's system on the open face; `last` is the value of the last unknown (the common payoff), constant on a continuum. */
+export type Face = { kind: "none" } | { kind: "point"; x: Float64Array; last: number } | { kind: "continuum"; last: number } | { kind: "undecided" };
 
 /**
  * Classifies the solution set of a singular bordered system, restricted to the open face
  * (first `s` unknowns positive; the last unknown is the common payoff).
  */
-function singularFace(M: Float64Array, b: Float64Array, rows: number, cols: number, s: number, tol: number): Face {
+export function singularFace(M: Float64Array, b: Float64Array, rows: number, cols: number, s: number, tol: number): Face {
   const sol = solveGeneral(M, b, rows, cols, tol);
   if (!sol.consistent) return { kind: "none" };
   const d = sol.nullSpace.length;
   if (d === 0) {
     const x = sol.particular.slice(0, s);
     for (let i = 0; i < s; i++) if ((x[i] as number) <= SHARE_TOLERANCE) return { kind: "none" };
-    return { kind: "point", x };
+    return { kind: "point", x, last: sol.particular[s] ?? 0 };
   }
   // A null direction that moves no share leaves the point fixed (only the payoff unknown varies).
   const moving = sol.nullSpace.filter((q) => {
@@ -74,7 +75,7 @@ function singularFace(M: Float64Array, b: Float64Array, rows: number, cols: numb
   if (moving.length === 0) {
     const x = sol.particular.slice(0, s);
     for (let i = 0; i < s; i++) if ((x[i] as number) <= SHARE_TOLERANCE) return { kind: "none" };
-    return { kind: "point", x };
+    return { kind: "point", x, last: sol.particular[s] ?? 0 };
   }
   if (moving.length === 1) {
     const q = moving[0] as Float64Array;
@@ -90,7 +91,34 @@ function singularFace(M: Float64Array, b: Float64Array, rows: number, cols: numb
       } else if (qi > 0) lo = Math.max(lo, -pi / qi);
       else hi = Math.min(hi, -pi / qi);
     }
-    return hi - lo > 1e-9 ? { kind: "continuum" } : { kind: "none" };
+    return hi - lo > 1e-9 ? { kind: "continuum", last: p[s] ?? 0 } : { kind: "none" };
+  }
+  // Larger solution sets: project the face's barycentre onto the solution set (least squares
+  // in the shares); a projection with every share positive proves a continuum.
+  const d2 = moving.length;
+  const G = new Float64Array(d2 * d2);
+  const r = new Float64Array(d2);
+  const p = sol.particular;
+  for (let a = 0; a < d2; a++) {
+    const qa = moving[a] as Float64Array;
+    for (let b2 = 0; b2 < d2; b2++) {
+      const qb = moving[b2] as Float64Array;
+      let g = 0;
+      for (let i = 0; i < s; i++) g += (qa[i] as number) * (qb[i] as number);
+      G[a * d2 + b2] = g;
+    }
+    let h = 0;
+    for (let i = 0; i < s; i++) h += (qa[i] as number) * (1 / s - (p[i] as number));
+    r[a] = h;
+  }
+  if (solveInPlace(G, r, d2, 1e-14)) {
+    let ok = true;
+    for (let i = 0; i < s && ok; i++) {
+      let xi = p[i] as number;
+      for (let a = 0; a < d2; a++) xi += (r[a] as number) * ((moving[a] as Float64Array)[i] as number);
+      if (xi <= SHARE_TOLERANCE) ok = false;
+    }
+    if (ok) return { kind: "continuum", last: p[s] ?? 0 };
   }
   return { kind: "undecided" };
 }
@@ -121,7 +149,7 @@ function borderedFace(
     if (solveInPlace(M2, b2, r, tol)) {
       const x = b2.slice(0, c - 1);
       for (let i = 0; i < c - 1; i++) if ((x[i] as number) <= SHARE_TOLERANCE) return { kind: "none" };
-      return { kind: "point", x };
+      return { kind: "point", x, last: b2[c - 1] as number };
     }
   }
   return singularFace(M, b, r, c, c - 1, tol);
