@@ -13,10 +13,13 @@ import { db } from "@/db/client";
 import { job } from "@/db/schema";
 import type { Report } from "@/lib/engine/types";
 import { recordAudit, type Executor } from "@/lib/audit";
+import { NotFound } from "@/lib/errors";
+import { loadVisibleVersion } from "@/lib/models";
 import { storeReport } from "@/lib/reports";
-import type { JobRow } from "@/lib/types/jobs";
+import type { Viewer } from "@/lib/types/deposit";
+import { toJobStatus, type JobRow, type JobStatus } from "@/lib/types/jobs";
 
-export { toJobStatus, type JobRow } from "@/lib/types/jobs";
+export { toJobStatus, type JobRow, type JobStatus } from "@/lib/types/jobs";
 
 export const DEFAULT_MAX_ATTEMPTS = 3;
 
@@ -233,4 +236,17 @@ export async function getJob(jobId: string): Promise<JobRow | null> {
 export async function latestJobForVersion(versionId: string, exec: Executor = db): Promise<JobRow | null> {
   const rows = await exec.select().from(job).where(eq(job.versionId, versionId)).orderBy(desc(job.createdAt)).limit(1);
   return rows[0] ?? null;
+}
+
+/** A job's status for a viewer who may see its version (polling from the workspace or a script); else NotFound. */
+export async function getJobStatus(jobId: string, viewer: Viewer): Promise<JobStatus> {
+  const row = await getJob(jobId);
+  if (row === null) throw new NotFound("job");
+  try {
+    await loadVisibleVersion(row.versionId, viewer);
+  } catch (e) {
+    if (e instanceof NotFound) throw new NotFound("job");
+    throw e;
+  }
+  return toJobStatus(row);
 }

@@ -143,6 +143,11 @@ export class EnginePool {
     return this.slots.length;
   }
 
+  /** Tasks running or waiting for a thread. */
+  get backlog(): number {
+    return this.queue.length + this.slots.filter((s) => s.current !== null).length;
+  }
+
   /** Runs `task` on a free thread (queued while all are busy); rejects with EngineTimeout past `timeoutMs`. */
   run<T = unknown>(task: EngineTask, timeoutMs: number): Promise<T> {
     if (this.closed) return Promise.reject(new EngineThreadCrashed("the pool was closed"));
