@@ -7,16 +7,8 @@ export function Formula({ parts }: { parts: FormulaParts }) {
     <span className="font-serif text-base whitespace-nowrap" aria-label={formulaText(parts)} role="math">
       {parts.map((p, i) => {
         if ("text" in p) return <span key={i}>{p.text}</span>;
-        const base = p.dot ? (
-          <span className="relative inline-block italic">
-            {p.sym}
-            <span aria-hidden className="absolute -top-2.5 left-0 right-0 text-center not-italic leading-none">
-              ˙
-            </span>
-          </span>
-        ) : (
-          <span className="italic">{p.sym}</span>
-        );
+        // A time derivative is the symbol with a combining dot above (U+0307), as in print.
+        const base = <span className="italic">{p.dot ? `${p.sym}\u0307` : p.sym}</span>;
         return (
           <span key={i} aria-hidden>
             {base}

@@ -64,3 +64,51 @@ export async function seedModel(ownerId: string, m: SeedModel): Promise<string> 
   }
   return modelId;
 }
+
+/**
+ * A public model deposited the way an author does it (lib/models.ts, lib/versions.ts) and
+ * re-run by the verification worker with the engine in-process, so its report is the
+ * server's own. Returns the model's slug once every version has its report.
+ */
+export async function depositPublicModel(
+  specTexts: string[],
+  fields: { title: string; summary?: string; authors?: { name: string; orcid?: string }[]; doi?: string; visibility?: "public" | "private" },
+): Promise<{ slug: string; ownerId: string }> {
+  const { createModel } = await import("@/lib/models");
+  const { addVersion } = await import("@/lib/versions");
+  const { readReport } = await import("@/lib/reports");
+  const { VerificationWorker } = await import("@/lib/worker/loop");
+  const { verifySpecText } = await import("@/lib/engine/verify");
+  const ownerId = await seedUser();
+  const owner = { id: ownerId, role: "author" };
+  const model = await createModel(owner, {
+    title: fields.title,
+    summary: fields.summary ?? "",
+    authors: fields.authors ?? [],
+    doi: fields.doi ?? null,
+    visibility: fields.visibility ?? "public",
+  });
+  const versionIds: string[] = [];
+  for (const text of specTexts) {
+    const added = await addVersion(model.slug, text, owner);
+    versionIds.push(added.version.id);
+  }
+  const worker = new VerificationWorker({
+    pollMs: 50,
+    runner: async ({ specText }) => verifySpecText(specText),
+    log: () => {},
+  });
+  worker.start();
+  try {
+    const deadline = Date.now() + 120_000;
+    for (const id of versionIds) {
+      while ((await readReport(id)) === null) {
+        if (Date.now() > deadline) throw new Error(`no report for version ${id} within 120 s`);
+        await new Promise((r) => setTimeout(r, 50));
+      }
+    }
+  } finally {
+    await worker.stop();
+  }
+  return { slug: model.slug, ownerId };
+}
