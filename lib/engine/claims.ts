@@ -414,7 +414,7 @@ function fixationClaim(claim: Extract<Claim, { kind: "fixation-probability" }>, 
   return {
     ...base,
     status: ok ? "confirmed" : "contradicted",
-    message: `A single ${claim.mutant} among ${claim.populationSize - 1} ${claim.resident} fixes with probability ${fmt(value)} (Moran process, selection intensity ${fmt(claim.selectionIntensity)}); the claim says ${fmt(claim.value)}, a difference of ${fmt(d)} (tolerance ${fmt(tolerance)}).`,
+    message: `A single ${claim.mutant} among ${claim.populationSize - 1} residents playing ${claim.resident} fixes with probability ${fmt(value)} (Moran process, selection intensity ${fmt(claim.selectionIntensity)}); the claim says ${fmt(claim.value)}, a difference of ${fmt(d)} (tolerance ${fmt(tolerance)}).`,
     deviation: d,
     computed: { value },
   };
