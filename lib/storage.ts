@@ -283,37 +283,3 @@ export function declaredLength(request: Request): number | null {
   if (value === null || !/^\d+$/.test(value)) return null;
   return Number(value);
 }
-
-/**
- * The client's file name for a raw-body upload: the X-File-Name header (percent-encoded, as
- * Uppy's XHR upload sends it with `headers: (file) => ({ "X-File-Name": encodeURIComponent(file.name) })`),
- * else a `name` query parameter, else `fallback`. Display metadata only.
- */
-export function uploadName(request: Request, fallback: string): string {
-  const header = request.headers.get("x-file-name");
-  if (header !== null && header !== "") {
-    try {
-      return decodeURIComponent(header);
-    } catch {
-      return header;
-    }
-  }
-  const query = new URL(request.url).searchParams.get("name");
-  return query !== null && query !== "" ? query : fallback;
-}
-
-/**
- * Reads a spec upload from a request with raw body (any client: Uppy, curl, a script): at
- * most 1 MB, refused early by Content-Length; the name, if given, must end in .json.
- */
-export async function readSpecUpload(request: Request): Promise<{ text: string; fileName: string }> {
-  const fileName = sanitizeFileName(uploadName(request, "spec.json"));
-  typeRuleFor(fileName, "spec");
-  const bytes = await readCapped(request.body, "spec", declaredLength(request));
-  return { text: decodeSpecBytes(bytes), fileName };
-}
-
-/** Streams a supplementary-file upload from a request with raw body into the store (see storeUpload). */
-export function readSupplementUpload(request: Request): { body: ReadableStream<Uint8Array> | null; name: string; declaredLength: number | null } {
-  return { body: request.body, name: uploadName(request, "file"), declaredLength: declaredLength(request) };
-}
