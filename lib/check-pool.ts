@@ -1,5 +1,5 @@
 /**
- * The stateless check API's own engine threads: a small EnginePool (lib/worker/pool.ts) apart
+ * The stateless check API's own engine thread: a small EnginePool (lib/worker/pool.ts) apart
  * from the job worker's, so a reader's re-run never waits behind a long registered
  * verification, and the request path never runs the engine on the event loop. Work is bounded
  * three ways: a short engine budget, a thread timeout, and a cap on waiting requests (past it
@@ -10,8 +10,8 @@ import type { Report } from "@/lib/engine/types";
 import { AppError } from "@/lib/errors";
 import { EnginePool, EngineTimeout } from "@/lib/worker/pool";
 
-/** Largest spec body the check API reads (the same 1 MiB as a spec upload). */
-export const CHECK_MAX_BYTES = 1024 * 1024;
+/** Largest spec body the check API reads: the engine's own limit of 1 MB (1 000 000 bytes). */
+export { MAX_INPUT_BYTES as CHECK_MAX_BYTES } from "@/lib/engine/validate";
 
 /** The engine's own budget for one check: inside it, slow claims come back inconclusive. */
 export const CHECK_BUDGET = { wallClockMs: 4_000, maxSteps: 500_000 } as const;

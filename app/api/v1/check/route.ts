@@ -1,8 +1,8 @@
 /**
  * POST /api/v1/check: verifies a posted spec (restpoint/model@1 JSON) and returns the report.
- * Stateless: nothing is stored. Bodies over 1 MiB get 413 before they are read whole; each
- * client gets a token bucket (429 with Retry-After past it); the engine runs on a check thread
- * with a short budget (503 when busy or overrunning).
+ * Stateless: nothing is stored. Bodies over 1 MB get 413 before they are read whole; each
+ * client gets a token bucket (429 with Retry-After past it); the engine runs on the check
+ * thread of lib/check-pool.ts with a short budget (503 when its backlog is full or a run overruns).
  */
 import { CHECK_MAX_BYTES, CheckUnavailable, runCheck } from "@/lib/check-pool";
 import { PayloadTooLarge, RateLimited, ValidationError } from "@/lib/errors";
@@ -16,10 +16,14 @@ export const dynamic = "force-dynamic";
 const limiter = ((globalThis as unknown as { __restpointCheckLimiter?: TokenBucketLimiter }).__restpointCheckLimiter ??=
   new TokenBucketLimiter({ capacity: 10, refillPerSecond: 1 / 3, maxClients: 10_000 }));
 
+function tooLarge(limit: number): PayloadTooLarge {
+  return new PayloadTooLarge(limit, `The specification is larger than the limit of 1 MB (${limit.toLocaleString("en-US")} bytes).`);
+}
+
 /** Reads at most `limit` bytes of the body; throws PayloadTooLarge as soon as it is exceeded. */
 async function readLimited(req: Request, limit: number): Promise<string> {
   const declared = req.headers.get("content-length");
-  if (declared !== null && Number(declared) > limit) throw new PayloadTooLarge(limit);
+  if (declared !== null && Number(declared) > limit) throw tooLarge(limit);
   if (req.body === null) return "";
   const reader = req.body.getReader();
   const chunks: Uint8Array[] = [];
@@ -30,7 +34,7 @@ async function readLimited(req: Request, limit: number): Promise<string> {
     size += value.byteLength;
     if (size > limit) {
       await reader.cancel();
-      throw new PayloadTooLarge(limit);
+      throw tooLarge(limit);
     }
     chunks.push(value);
   }
