@@ -47,7 +47,9 @@ class Slot {
   ) {}
 
   private spawn(): Promise<void> {
-    const worker = new Worker(this.entry, { workerData: { taskModule: this.taskModule } });
+    // No inherited flags: the entry sets up its own loader, and a parent's flags (an inspector
+    // port, --input-type, a loader of the Next server) can break or clash in a thread.
+    const worker = new Worker(this.entry, { workerData: { taskModule: this.taskModule }, execArgv: [] });
     this.worker = worker;
     this.ready = new Promise<void>((resolve, reject) => {
       worker.once("error", reject);
