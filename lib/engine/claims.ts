@@ -74,7 +74,7 @@ export function maxDistance(a: ArrayLike<number>, b: ArrayLike<number>): number 
 export function fmt(v: number): string {
   if (v === 0) return "0";
   const s = Number(v.toPrecision(6));
-  return Math.abs(s) < 1e-4 || Math.abs(s) >= 1e6 ? s.toExponential() : String(s);
+  return Math.abs(s) < 1e-3 || Math.abs(s) >= 1e6 ? s.toExponential() : String(s);
 }
 
 function supportNames(game: CompiledGame, support: number[]): string {

@@ -32,6 +32,7 @@ import {
 } from "./types";
 import { MAX_INPUT_BYTES, validateSpec } from "./validate";
 import { ENGINE_VERSION } from "./version";
+import { jsonErrorOffset, lineAndColumn } from "./json-position";
 import { round12, roundEigenvalues } from "./rounding";
 
 export { ENGINE_VERSION };
@@ -106,12 +107,13 @@ export function verifySpecText(text: string, options: VerifyOptions = {}): Repor
   let value: unknown;
   try {
     value = JSON.parse(body);
-  } catch (e) {
-    const detail = e instanceof Error ? e.message : String(e);
-    const pos = /position (\d+)/.exec(detail);
-    const error: SpecError = { path: "", message: `The file is not valid JSON: ${detail.replace(/\.$/, "")}.` };
-    if (body.trim() === "") error.message = "The file is empty; a spec is a JSON object.";
-    if (pos !== null) error.line = body.slice(0, Number(pos[1])).split("\n").length;
+  } catch {
+    if (body.trim() === "") return invalidReport(sha256Hex(text), [{ path: "", message: "The file is empty; a spec is a JSON object." }]);
+    const offset = jsonErrorOffset(body);
+    const at = offset < 0 ? undefined : lineAndColumn(body, offset);
+    const where = at === undefined ? "" : offset >= body.length ? " (the text ends too early)" : ` at line ${at.line}, column ${at.column}, near ${JSON.stringify(body.slice(offset, offset + 12))}`;
+    const error: SpecError = { path: "", message: `The file is not valid JSON${where}.` };
+    if (at !== undefined) error.line = at.line;
     return invalidReport(sha256Hex(text), [error]);
   }
   return verifyValue(value, text, options);
