@@ -26,6 +26,7 @@ export default defineConfig({
         extends: true,
         test: {
           name: "unit",
+          sequence: { groupOrder: 0 },
           include: ["tests/**/*.test.ts", "tests/**/*.test.tsx"],
           exclude: [...configDefaults.exclude, "tests/integration/**", "tests/e2e/**"],
           fileParallelism: true,
@@ -35,6 +36,7 @@ export default defineConfig({
         extends: true,
         test: {
           name: "integration",
+          sequence: { groupOrder: 0 },
           include: ["tests/integration/**/*.test.ts"],
           fileParallelism: true,
         },
@@ -44,6 +46,8 @@ export default defineConfig({
         test: {
           name: "e2e",
           include: ["tests/e2e/**/*.test.ts"],
+          // After unit and integration tests, so timing-sensitive tests do not share the CPU with a browser.
+          sequence: { groupOrder: 1 },
           globalSetup: ["tests/e2e/support/global-setup.ts"],
           // One app and one browser per file; files run one after another on this 2-core machine.
           fileParallelism: false,

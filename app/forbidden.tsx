@@ -10,7 +10,7 @@ export default function Forbidden() {
           <LockIcon /> Not for your role
         </p>
         <h1 className="text-2xl font-bold">Your account cannot open this page</h1>
-        <p className="text-ink-soft">It is meant for editors or administrators. If you need access, ask an administrator of this registry to change your role.</p>
+        <p className="text-ink-soft">It needs a role your account does not have. If you should have access, ask an administrator of this registry to change your role.</p>
         <ButtonLink href="/workspace" kind="secondary">
           Back to your workspace
         </ButtonLink>

@@ -53,7 +53,7 @@ export default async function HomePage() {
           </div>
           <ul className="flex flex-col gap-3">
             {VERDICT_VALUES.map((v) => (
-              <li key={v} className="flex flex-col gap-1">
+              <li key={v} className="flex flex-col items-start gap-1">
                 <VerdictTag verdict={v} />
                 <span className="text-sm text-ink-soft">{VERDICT_STYLES[v].meaning}</span>
               </li>

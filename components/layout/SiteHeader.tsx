@@ -24,6 +24,7 @@ export async function SiteHeader() {
           <Wordmark />
         </Link>
         <nav aria-label="Main" className="flex flex-1 flex-wrap items-center gap-1">
+          <NavLink href="/models">Models</NavLink>
           {actor === null ? null : <NavLink href="/workspace">Workspace</NavLink>}
           {hasRole(actor, "admin") ? <NavLink href="/admin">Administration</NavLink> : null}
           {actor !== null && env.useFakeSmtp ? <NavLink href="/dev/mail">Captured mail</NavLink> : null}

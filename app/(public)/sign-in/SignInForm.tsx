@@ -51,18 +51,19 @@ export function SignInForm({ next, demoAccounts }: { next: string; demoAccounts:
       {demoAccounts.length === 0 ? null : (
         <div className="flex flex-col gap-2 border-t border-line pt-4" data-testid="demo-accounts">
           <p className="text-xs font-semibold uppercase tracking-wider text-ink-faint">Demo accounts (development only)</p>
-          <ul className="flex flex-col gap-1.5">
+          <ul className="flex flex-col gap-2.5">
             {demoAccounts.map((a) => (
-              <li key={a.email} className="flex flex-wrap items-center justify-between gap-2 text-sm">
-                <span>
-                  <span className="font-semibold capitalize">{a.role}</span>{" "}
-                  <span className="font-mono text-xs text-ink-soft">
+              <li key={a.email} className="flex items-center justify-between gap-3">
+                <span className="flex min-w-0 flex-col">
+                  <span className="text-sm font-semibold capitalize">{a.role}</span>
+                  <span className="truncate font-mono text-xs text-ink-soft">
                     {a.email} / {a.password}
                   </span>
                 </span>
                 <button
                   type="button"
-                  className="rounded-[var(--radius-control)] px-2 py-0.5 text-xs font-semibold text-tide hover:bg-tide-wash"
+                  aria-label={`Fill in the demo ${a.role} account`}
+                  className="shrink-0 rounded-[var(--radius-control)] border border-line-strong px-2.5 py-1 text-xs font-semibold text-tide hover:border-tide hover:bg-tide-wash"
                   onClick={() => {
                     setEmail(a.email);
                     setPassword(a.password);
