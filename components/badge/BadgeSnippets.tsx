@@ -16,6 +16,11 @@ export interface BadgeSnippetsProps {
   isPublic: boolean;
   /** Absolute origin of the links; defaults to the server's configured address. */
   origin?: string;
+  /**
+   * Changes whenever what the badge shows may have changed (a decision id, a verdict), so the
+   * preview on this page reloads after a client-side navigation instead of reusing the image.
+   */
+  revision?: string;
 }
 
 export function badgeUrls(slug: string, number: number | undefined, origin: string) {
@@ -44,12 +49,12 @@ function Snippet({ id, label, text }: { id: string; label: string; text: string 
         </label>
         <CopyButton text={text} label={`Copy ${label}`} />
       </div>
-      <textarea id={id} readOnly rows={2} value={text} className="rp-input resize-none font-mono text-xs leading-snug" data-testid={`badge-snippet-${id.endsWith("md") ? "markdown" : "html"}`} />
+      <textarea id={id} readOnly rows={3} value={text} className="rp-input resize-none font-mono text-xs leading-snug break-all" data-testid={`badge-snippet-${id.endsWith("md") ? "markdown" : "html"}`} />
     </div>
   );
 }
 
-export function BadgeSnippets({ slug, number, isPublic, origin = env.authUrl }: BadgeSnippetsProps) {
+export function BadgeSnippets({ slug, number, isPublic, origin = env.authUrl, revision }: BadgeSnippetsProps) {
   const u = badgeUrls(slug, number, origin);
   const s = badgeSnippets(slug, number, origin);
   const idBase = `badge-${slug}-${number ?? "model"}`;
@@ -67,7 +72,12 @@ export function BadgeSnippets({ slug, number, isPublic, origin = env.authUrl }: 
       </div>
       {/* A plain img: the badge is an SVG file served with its own caching headers. */}
       {/* eslint-disable-next-line @next/next/no-img-element */}
-      <img src={u.image.replace(origin.replace(/\/$/, ""), "")} alt={u.alt} height={40} className="h-10 w-auto self-start" />
+      <img
+        src={`${u.image.replace(origin.replace(/\/$/, ""), "")}${revision === undefined ? "" : `?r=${encodeURIComponent(revision)}`}`}
+        alt={u.alt}
+        height={40}
+        className="h-10 w-auto self-start"
+      />
       {isPublic ? null : (
         <p className="text-sm text-ink-soft">
           The model is private: the badge shows only to you and the venue&apos;s editors until it is public.

@@ -61,7 +61,7 @@ type Loaded = { kind: "page"; data: QueuePage } | { kind: "error"; message: stri
 function SortHeader({ label, sortKey, c, onSort }: { label: string; sortKey: QueueSort; c: QueueControls; onSort: (s: QueueSort) => void }) {
   const active = c.sort === sortKey;
   return (
-    <th scope="col" aria-sort={active ? (c.dir === "asc" ? "ascending" : "descending") : "none"} className="px-3 py-2 text-left font-semibold">
+    <th scope="col" aria-sort={active ? (c.dir === "asc" ? "ascending" : "descending") : "none"} className="px-3 py-2 text-left font-semibold whitespace-nowrap">
       <button type="button" onClick={() => onSort(sortKey)} className={`inline-flex items-center gap-1 hover:text-tide ${active ? "text-ink" : "text-ink-soft"}`}>
         {label}
         <span aria-hidden="true" className="font-mono text-2xs">
@@ -204,7 +204,7 @@ export function QueueTable({ venueSlug, initial }: { venueSlug: string; initial:
             </select>
             <button
               type="button"
-              className={buttonClass("secondary", "px-3")}
+              className={buttonClass("secondary", "px-3 whitespace-nowrap")}
               onClick={() => setC((prev) => ({ ...prev, dir: prev.dir === "asc" ? "desc" : "asc", page: 1 }))}
               aria-label={c.dir === "asc" ? "Ascending; switch to descending" : "Descending; switch to ascending"}
             >
@@ -277,7 +277,7 @@ export function QueueTable({ venueSlug, initial }: { venueSlug: string; initial:
               <SortHeader label="Author" sortKey="author" c={c} onSort={onSort} />
               <SortHeader label="Version" sortKey="version" c={c} onSort={onSort} />
               <SortHeader label="Re-run" sortKey="verdict" c={c} onSort={onSort} />
-              <SortHeader label="Claims ✓ ✗ ?" sortKey="contradicted" c={c} onSort={onSort} />
+              <SortHeader label="Claims ✓✗?" sortKey="contradicted" c={c} onSort={onSort} />
               <SortHeader label="Status" sortKey="status" c={c} onSort={onSort} />
               <SortHeader label="Submitted" sortKey="submitted" c={c} onSort={onSort} />
               <th scope="col" className="px-3 py-2 text-left font-semibold text-ink-soft">
@@ -290,7 +290,7 @@ export function QueueTable({ venueSlug, initial }: { venueSlug: string; initial:
               const href = `/workspace/venues/${encodeURIComponent(venueSlug)}/review/${encodeURIComponent(r.model.slug)}/v/${r.version.number}`;
               return (
                 <tr key={r.submissionId} className="border-b border-line last:border-b-0 hover:bg-sunken/40" data-testid="queue-row" data-model={r.model.slug}>
-                  <td className="max-w-[18rem] px-3 py-2.5">
+                  <td className="min-w-[14rem] max-w-[22rem] px-3 py-2.5">
                     <Link href={href} className="font-semibold text-ink hover:text-tide hover:underline">
                       {r.model.title}
                     </Link>

@@ -19,7 +19,7 @@ const CHANGE_LOOK: Record<ClaimChange["change"], string> = {
 function Side({ side }: { side: ClaimSide | undefined }) {
   if (side === undefined) return <span className="text-ink-faint">—</span>;
   return (
-    <span className="flex flex-col gap-0.5">
+    <span className="flex flex-col items-start gap-0.5">
       <VerdictTag verdict={side.status} size="sm" />
       {side.deviation === undefined ? null : (
         <span className="font-mono text-2xs text-ink-soft">

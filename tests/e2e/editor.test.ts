@@ -108,6 +108,7 @@ describe("an editor reviews, requests changes, then verifies", () => {
     await page.getByRole("button", { name: /^Awaiting decision/ }).click();
     await expect.poll(async () => page.getByTestId("queue-row").count(), { timeout: 10_000 }).toBe(1);
     await expect.poll(() => new URL(page.url()).searchParams.get("status")).toBe("awaiting-decision");
+    await expect.poll(async () => (await page.getByTestId("queue-summary").textContent()) ?? "").toBe("1 submission matches");
     const row = page.getByTestId("queue-row").first();
     expect(await row.getAttribute("data-model")).toBe(slug);
     expect(await row.textContent()).toContain("v2");

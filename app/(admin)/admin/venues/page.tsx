@@ -33,9 +33,9 @@ export default async function AdminVenuesPage() {
                     <p className="font-mono text-2xs text-ink-faint">{v.slug}</p>
                     {v.description === "" ? null : <p className="mt-1 max-w-2xl text-sm text-ink-soft">{v.description}</p>}
                   </div>
-                  <div className="text-right text-sm">
+                  <div className="flex flex-col items-start gap-1 text-sm sm:items-end">
                     <p>
-                      <span className="font-mono">{v.awaitingDecision}</span> awaiting a decision · <span className="font-mono">{v.models}</span> models
+                      <span className="font-mono">{v.awaitingDecision}</span> awaiting a decision · <span className="font-mono">{v.models}</span> model{v.models === 1 ? "" : "s"}
                     </p>
                     <Link className="rp-link" href={`/workspace/venues/${v.slug}`}>
                       Open the queue

@@ -125,7 +125,7 @@ export default async function ReviewPage({ params, searchParams }: Props) {
         </Notice>
       ) : null}
 
-      <div className="grid gap-8 lg:grid-cols-[minmax(0,1fr)_22rem]">
+      <div className="grid gap-8 lg:grid-cols-[minmax(0,1fr)_24rem]">
         <div className="flex min-w-0 flex-col gap-8">
           <Section
             id="review-findings"
@@ -134,25 +134,14 @@ export default async function ReviewPage({ params, searchParams }: Props) {
           >
             {report === null ? <p className="text-sm text-ink-soft">Shown once the re-run has finished.</p> : <FindingsList findings={findings} game={spec?.game} />}
           </Section>
-
-          <Section id="review-report" title="Re-run report">
-            {report === null ? (
-              <Notice title={ver.job?.state === "failed" ? "The re-run failed." : "The re-run has not finished yet."}>
-                {ver.job?.state === "failed" ? (ver.job.lastError ?? "The author sees the error and can upload a corrected version.") : "Reload this page in a moment."}
-              </Notice>
-            ) : (
-              <ReportView report={report} game={spec?.game} specClaims={spec?.claims} />
-            )}
-          </Section>
         </div>
-
-        <aside className="flex flex-col gap-6">
+        <div className="flex flex-col gap-6">
           <section aria-labelledby="decision-title" className="rp-card flex flex-col gap-3 p-5">
             <h2 id="decision-title" className="text-lg font-semibold">
               Decision
             </h2>
             {decision !== null ? (
-              <div className="flex flex-col gap-2 text-sm" data-testid="recorded-decision" data-outcome={decision.outcome}>
+              <div className="flex flex-col items-start gap-2 text-sm" data-testid="recorded-decision" data-outcome={decision.outcome}>
                 <StatusPill status={decision.outcome} />
                 <p className="whitespace-pre-wrap">{decision.comment}</p>
                 <p className="text-xs text-ink-faint">
@@ -175,62 +164,72 @@ export default async function ReviewPage({ params, searchParams }: Props) {
               <DecisionForm action={decideAction.bind(null, { venue: v.slug, slug: m.slug, number: n })} versionNumber={n} verifiedBlockedReason={verifiedBlockedReason} />
             )}
           </section>
+        </div>
+      </div>
 
-          <section aria-labelledby="files-title" className="rp-card flex flex-col gap-3 p-5">
-            <h2 id="files-title" className="text-lg font-semibold">
-              The authors&apos; files
-            </h2>
-            <ul className="flex flex-col gap-2 text-sm">
-              {specFile === undefined ? null : (
-                <li>
-                  <a className="rp-link" href={`/api/v1/files/${specFile.id}`}>
-                    {specFile.originalName}
-                  </a>{" "}
-                  <span className="text-xs text-ink-faint">spec · {formatBytes(specFile.size)}</span>
+      <Section id="review-report" title="Re-run report">
+        {report === null ? (
+          <Notice title={ver.job?.state === "failed" ? "The re-run failed." : "The re-run has not finished yet."}>
+            {ver.job?.state === "failed" ? (ver.job.lastError ?? "The author sees the error and can upload a corrected version.") : "Reload this page in a moment."}
+          </Notice>
+        ) : (
+          <ReportView report={report} game={spec?.game} specClaims={spec?.claims} />
+        )}
+      </Section>
+
+      <div className="grid gap-6 md:grid-cols-2 xl:grid-cols-3">
+        <section aria-labelledby="files-title" className="rp-card flex flex-col gap-3 p-5">
+          <h2 id="files-title" className="text-lg font-semibold">
+            The authors&apos; files
+          </h2>
+          <ul className="flex flex-col gap-2 text-sm">
+            {specFile === undefined ? null : (
+              <li>
+                <a className="rp-link" href={`/api/v1/files/${specFile.id}`}>
+                  {specFile.originalName}
+                </a>{" "}
+                <span className="text-xs text-ink-faint">spec · {formatBytes(specFile.size)}</span>
+              </li>
+            )}
+            {supplements.map((f) => (
+              <li key={f.id}>
+                <a className="rp-link" href={`/api/v1/files/${f.id}`}>
+                  {f.originalName}
+                </a>{" "}
+                <span className="text-xs text-ink-faint">
+                  {f.mediaType} · {formatBytes(f.size)}
+                </span>
+              </li>
+            ))}
+            {specFile === undefined && supplements.length === 0 ? <li className="text-ink-soft">No files were uploaded with this version.</li> : null}
+          </ul>
+        </section>
+        <section aria-labelledby="versions-title" className="rp-card flex flex-col gap-3 p-5">
+          <h2 id="versions-title" className="text-lg font-semibold">
+            Versions
+          </h2>
+          <ul className="flex flex-col gap-1.5 text-sm">
+            {versions.map((x) => {
+              const d = decisions.find((y) => y.versionNumber === x.number && y.venue.id === v.id);
+              const sent = submissions.some((s) => s.versionNumber === x.number && s.venue.id === v.id);
+              return (
+                <li key={x.id} className="flex items-center justify-between gap-2">
+                  {x.number === n ? (
+                    <span className="font-semibold" aria-current="page">
+                      v{x.number} (this one)
+                    </span>
+                  ) : (
+                    <Link className="rp-link" href={`/workspace/venues/${v.slug}/review/${m.slug}/v/${x.number}`}>
+                      v{x.number}
+                    </Link>
+                  )}
+                  <span className="text-xs text-ink-soft">{d !== undefined ? OUTCOME_WORDS[d.outcome] : sent ? "submitted" : "not submitted"}</span>
                 </li>
-              )}
-              {supplements.map((f) => (
-                <li key={f.id}>
-                  <a className="rp-link" href={`/api/v1/files/${f.id}`}>
-                    {f.originalName}
-                  </a>{" "}
-                  <span className="text-xs text-ink-faint">
-                    {f.mediaType} · {formatBytes(f.size)}
-                  </span>
-                </li>
-              ))}
-              {specFile === undefined && supplements.length === 0 ? <li className="text-ink-soft">No files were uploaded with this version.</li> : null}
-            </ul>
-          </section>
-
-          <section aria-labelledby="versions-title" className="rp-card flex flex-col gap-3 p-5">
-            <h2 id="versions-title" className="text-lg font-semibold">
-              Versions
-            </h2>
-            <ul className="flex flex-col gap-1.5 text-sm">
-              {versions.map((x) => {
-                const d = decisions.find((y) => y.versionNumber === x.number && y.venue.id === v.id);
-                const sent = submissions.some((s) => s.versionNumber === x.number && s.venue.id === v.id);
-                return (
-                  <li key={x.id} className="flex items-center justify-between gap-2">
-                    {x.number === n ? (
-                      <span className="font-semibold" aria-current="page">
-                        v{x.number} (this one)
-                      </span>
-                    ) : (
-                      <Link className="rp-link" href={`/workspace/venues/${v.slug}/review/${m.slug}/v/${x.number}`}>
-                        v{x.number}
-                      </Link>
-                    )}
-                    <span className="text-xs text-ink-soft">{d !== undefined ? OUTCOME_WORDS[d.outcome] : sent ? "submitted" : "not submitted"}</span>
-                  </li>
-                );
-              })}
-            </ul>
-          </section>
-
-          <BadgeSnippets slug={m.slug} number={n} isPublic={m.visibility === "public"} />
-        </aside>
+              );
+            })}
+          </ul>
+        </section>
+        <BadgeSnippets slug={m.slug} number={n} isPublic={m.visibility === "public"} revision={decision?.id ?? report?.verdict ?? "pending"} />
       </div>
 
       <Section id="review-audit" title="Audit trail" description="Every step on this model, oldest first. Nobody can edit or delete these entries.">
