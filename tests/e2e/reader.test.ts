@@ -1,0 +1,147 @@
+/**
+ * A reader with no account: finds a model by a strategy name, opens it, re-runs it with a
+ * changed parameter, sees the plots change, and downloads the CSV and the BibTeX.
+ * Screenshots of the public pages at desktop and phone width, light and dark.
+ */
+import { readFileSync } from "node:fs";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { Page } from "playwright-core";
+import { app, openBrowser, screenshot, type OpenBrowser } from "./support/harness";
+
+let b: OpenBrowser;
+let meadow = "";
+let market = "";
+let hidden = "";
+
+const meadowSpec = readFileSync("schemas/examples/meadow-foragers.json", "utf8");
+const marketSpec = readFileSync("tests/integration/readers-market.json", "utf8");
+
+beforeAll(async () => {
+  // Seed the running app's database through the deposit functions (the seed module reads the environment on import).
+  process.env.DATABASE_URL = `file:${app().databaseFile}`;
+  const { depositPublicModel } = await import("../integration/readers-seed");
+  meadow = (
+    await depositPublicModel([meadowSpec], {
+      title: "Meadow foragers: patch defence",
+      summary: "Three tactics over nectar patches; a fictional bumble forager.",
+      authors: [{ name: "Ada Example", orcid: "0000-0002-1825-0097" }, { name: "Reef & Kelp Lab" }],
+      doi: "10.5555/meadow.2026_7",
+    })
+  ).slug;
+  market = (await depositPublicModel([marketSpec], { title: "Harbour inspections", authors: [{ name: "Ola Nordmann" }] })).slug;
+  // Private, and with the same strategy names: it must never show up.
+  hidden = (await depositPublicModel([meadowSpec.replace("Territory holding", "Secret territory holding")], { title: "Secret meadow draft", visibility: "private" })).slug;
+  b = await openBrowser();
+}, 300_000);
+
+afterAll(async () => {
+  await b?.close();
+});
+
+/** The polyline points of every plotted series inside `scope`, as one string. */
+async function seriesPoints(page: Page, scope: string): Promise<string> {
+  return page.locator(`${scope} svg[data-plot-svg] polyline`).evaluateAll((els) => els.map((e) => e.getAttribute("points") ?? "").join("|"));
+}
+
+describe("a reader without an account", () => {
+  it("finds a model by a strategy name, re-runs it with a new parameter and downloads its data", async () => {
+    const page = await b.page();
+    await page.goto("/models");
+    await page.getByLabel("Search models").fill("Sneaker");
+    await page.getByRole("button", { name: "Search" }).click();
+    await page.waitForURL((u) => u.searchParams.get("q") === "Sneaker");
+    const results = page.getByTestId("registry-results").locator("li");
+    await expect.poll(() => results.count()).toBe(1);
+    expect(await page.getByTestId("registry-count").innerText()).toBe("1 model; showing 1–1.");
+    expect(await page.content()).not.toContain("Secret meadow draft");
+
+    await results.first().getByRole("link", { name: "Meadow foragers: patch defence" }).click();
+    await page.waitForURL(`**/models/${meadow}`);
+    await expect.poll(() => page.getByRole("heading", { level: 1 }).innerText()).toContain("Territory holding among meadow foragers");
+    const registered = await seriesPoints(page, "[data-testid=report-view]");
+    expect(registered.length).toBeGreaterThan(100);
+
+    // Raise the cost of a fight: the mixed rest point moves from Holder share V/C = 2/3 to 2/8 (Maynard Smith 1982, from memory).
+    await page.getByTestId("param-C").fill("8");
+    await page.getByRole("button", { name: "Re-run with these values" }).click();
+    const own = page.getByTestId("own-results");
+    await own.waitFor({ timeout: 30_000 });
+    expect(await own.innerText()).toContain("These are not the registered results of this version");
+    const mine = await seriesPoints(page, "[data-testid=own-results]");
+    expect(mine.length).toBeGreaterThan(100);
+    expect(mine).not.toBe(registered);
+    expect(await own.getByRole("table").last().innerText()).toContain("(0.25, 0.75, 0)");
+    // The registered figures are still there, unchanged.
+    expect(await seriesPoints(page, "[data-testid=report-view]")).toBe(registered);
+    await screenshot(page, "reader-model-own-values");
+
+    // A value the rules refuse is caught in the browser, next to its field.
+    await page.locator("#try-0-0-0").fill("0.5");
+    await page.getByRole("button", { name: "Re-run with these values" }).click();
+    await expect.poll(() => page.getByTestId("try-values").innerText()).toContain("they sum to 1.45");
+    await page.getByRole("button", { name: "Scale these shares to sum to 1" }).click();
+    expect(await page.locator("#try-0-0-0").inputValue()).toBe("0.344827586207");
+
+    // CSV of the server's own run.
+    const [csvDownload] = await Promise.all([page.waitForEvent("download"), page.getByTestId("csv-holders-rare").click()]);
+    expect(csvDownload.suggestedFilename()).toBe(`${meadow}-v1-holders-rare.csv`);
+    const csv = readFileSync((await csvDownload.path()) ?? "", "utf8").split("\r\n");
+    expect(csv[0]).toBe("time,Holder,Sharer,Sneaker");
+    expect(csv[1]).toBe("0,0.05,0.9,0.05");
+    expect(csv).toHaveLength(203);
+
+    // BibTeX with the spec's hash.
+    const report = (await (await fetch(`${app().baseUrl}/models/${meadow}/v/1/report.json`)).json()) as { specSha256: string };
+    const [bibDownload] = await Promise.all([page.waitForEvent("download"), page.getByTestId("bibtex-link").click()]);
+    expect(bibDownload.suggestedFilename()).toBe(`${meadow}-v1.bib`);
+    const bib = readFileSync((await bibDownload.path()) ?? "", "utf8");
+    expect(bib.startsWith(`@misc{restpoint-${meadow}-v1,`)).toBe(true);
+    expect(bib).toContain("author = {Ada Example and Reef \\& Kelp Lab}");
+    expect(bib).toContain(`specification SHA-256 ${report.specSha256}`);
+  });
+
+  it("gets the same 404 for a private model as for one that does not exist", async () => {
+    const page = await b.page();
+    const priv = await page.goto(`/models/${hidden}`);
+    expect(priv?.status()).toBe(404);
+    const privText = await page.locator("main").innerText();
+    const none = await page.goto("/models/rp-doesnotexist");
+    expect(none?.status()).toBe(404);
+    expect(await page.locator("main").innerText()).toBe(privText);
+    expect(privText).not.toContain("Secret");
+  });
+
+  it("sees the page metadata and the sitemap", async () => {
+    const page = await b.page();
+    await page.goto(`/models/${meadow}`);
+    expect(await page.title()).toBe("Territory holding among meadow foragers: a three-tactic contest over nectar patches · Restpoint");
+    expect(await page.locator('meta[property="og:title"]').getAttribute("content")).toContain("Territory holding");
+    expect(await page.locator('meta[name="description"]').getAttribute("content")).toContain("Version 1 by Ada Example, Reef & Kelp Lab");
+    const sitemap = await (await fetch(`${app().baseUrl}/sitemap.xml`)).text();
+    expect(sitemap).toContain(`/models/${meadow}</loc>`);
+    expect(sitemap).not.toContain(hidden);
+  });
+});
+
+describe("screenshots of the public pages", () => {
+  for (const scheme of ["light", "dark"] as const) {
+    for (const [label, width] of [
+      ["desktop", 1280],
+      ["phone", 390],
+    ] as const) {
+      it(`${label}, ${scheme}`, async () => {
+        const page = await b.page(scheme);
+        await page.setViewportSize({ width, height: 860 });
+        await page.goto("/models?q=a");
+        await screenshot(page, `reader-registry-${label}-${scheme}`);
+        await page.goto(`/models/${meadow}`);
+        await screenshot(page, `reader-model-${label}-${scheme}`);
+        await page.goto(`/models/${market}`);
+        await screenshot(page, `reader-market-${label}-${scheme}`);
+        // Nothing may stick out sideways on a phone.
+        const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
+        expect(overflow).toBeLessThanOrEqual(1);
+      });
+    }
+  }
+});
