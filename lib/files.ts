@@ -6,13 +6,13 @@
 import "server-only";
 import { and, asc, eq } from "drizzle-orm";
 import { db } from "@/db/client";
-import { file } from "@/db/schema";
+import { file, model } from "@/db/schema";
 import { recordAudit } from "@/lib/audit";
+import { withBusyRetry } from "@/lib/jobs";
 import { Forbidden, NotFound } from "@/lib/errors";
 import { canEditModel, canReadModel, loadVisibleModel, loadVisibleVersion } from "@/lib/models";
 import { openBlob, removeBlob, storeUpload } from "@/lib/storage";
 import type { FileInfo, Viewer } from "@/lib/types/deposit";
-import { model } from "@/db/schema";
 
 export type FileRow = typeof file.$inferSelect;
 
@@ -45,7 +45,7 @@ export async function attachSupplement(
   if (uploader === null || !canEditModel(m, uploader)) throw new Forbidden("Only the model's owner may attach files to it.");
   const blob = await storeUpload(upload.body, { name: upload.name, purpose: "supplement", declaredLength: upload.declaredLength });
   try {
-    const row = await db.transaction(async (tx) => {
+    const row = await withBusyRetry(() => db.transaction(async (tx) => {
       const rows = await tx
         .insert(file)
         .values({
@@ -72,7 +72,7 @@ export async function attachSupplement(
         tx,
       );
       return inserted;
-    });
+    }));
     return toFileInfo(row);
   } catch (e) {
     await removeUnreferenced(blob.sha256);

@@ -23,6 +23,32 @@ export { toJobStatus, type JobRow, type JobStatus } from "@/lib/types/jobs";
 
 export const DEFAULT_MAX_ATTEMPTS = 3;
 
+/** True for SQLite's "database is locked" (SQLITE_BUSY), anywhere in the error's cause chain. */
+export function isBusyError(e: unknown): boolean {
+  for (let cur: unknown = e; cur instanceof Error; cur = cur.cause) {
+    const code = (cur as { code?: unknown }).code;
+    if (code === "SQLITE_BUSY" || /SQLITE_BUSY|database is locked/.test(cur.message)) return true;
+  }
+  return false;
+}
+
+/**
+ * Runs `fn` again (up to 8 times, waiting 20 ms, 40 ms, ... up to 1 s) when SQLite answers
+ * SQLITE_BUSY: another process, or another connection of this one, holds the write lock for a
+ * moment. Waiting asynchronously lets this process's own open transaction finish meanwhile.
+ */
+export async function withBusyRetry<T>(fn: () => Promise<T>): Promise<T> {
+  for (let attempt = 0; ; attempt++) {
+    try {
+      return await fn();
+    } catch (e) {
+      if (attempt >= 7 || !isBusyError(e)) throw e;
+      const wait = Math.min(1000, 20 * 2 ** attempt) * (0.5 + Math.random());
+      await new Promise((resolve) => setTimeout(resolve, wait));
+    }
+  }
+}
+
 /** Sentence kept as lastError when a job is taken over from a worker whose lease ran out. */
 export const LEASE_EXPIRED_MESSAGE =
   "The previous attempt stopped without finishing (its worker stopped answering), so the run was started again.";
@@ -62,7 +88,7 @@ export async function enqueueJob(
  * Marks as failed every job whose lease expired after its last allowed attempt (its worker
  * died each time). Returns those jobs so the caller can tell their authors.
  */
-export async function failAbandonedJobs(now: number = Date.now()): Promise<JobRow[]> {
+async function failAbandonedJobsOnce(now: number = Date.now()): Promise<JobRow[]> {
   const at = new Date(now);
   const abandoned = and(eq(job.state, "running"), lt(job.leaseExpiresAt, at), gte(job.attempts, job.maxAttempts));
   const candidates = await db.select().from(job).where(abandoned);
@@ -100,7 +126,7 @@ export async function failAbandonedJobs(now: number = Date.now()): Promise<JobRo
  * attempts left. One UPDATE ... WHERE id = (SELECT ...) RETURNING: SQLite runs it under the
  * database's write lock, so two processes can never both get the same job.
  */
-export async function claimNext(workerId: string, leaseMs: number, now: number = Date.now()): Promise<JobRow | null> {
+async function claimNextOnce(workerId: string, leaseMs: number, now: number = Date.now()): Promise<JobRow | null> {
   const at = new Date(now);
   const claimable = or(
     and(eq(job.state, "queued"), lte(job.runAfter, at)),
@@ -125,7 +151,7 @@ export async function claimNext(workerId: string, leaseMs: number, now: number =
 }
 
 /** Extends the lease; false when `workerId` no longer holds the job (it expired and was taken over). */
-export async function heartbeat(jobId: string, workerId: string, leaseMs: number, now: number = Date.now()): Promise<boolean> {
+async function heartbeatOnce(jobId: string, workerId: string, leaseMs: number, now: number = Date.now()): Promise<boolean> {
   const rows = await db
     .update(job)
     .set({ leaseExpiresAt: new Date(now + leaseMs), updatedAt: new Date(now) })
@@ -138,7 +164,7 @@ export async function heartbeat(jobId: string, workerId: string, leaseMs: number
  * Stores the report (whole and per claim) and marks the job finished, in one transaction.
  * Returns false, storing nothing, when `workerId` lost the lease meanwhile.
  */
-export async function completeJob(
+async function completeJobOnce(
   jobId: string,
   workerId: string,
   report: Report,
@@ -165,7 +191,7 @@ export type FailOutcome = "retry" | "failed" | "lost";
  * Records a failed attempt: back to the queue after a back-off while attempts remain, else
  * `failed` with `message` kept as lastError for the author. "lost" when the lease was gone.
  */
-export async function failJob(
+async function failJobOnce(
   jobId: string,
   workerId: string,
   message: string,
@@ -211,7 +237,7 @@ export async function failJob(
  * Gives a job back untouched (a worker shutting down cleanly before it finished): queued at
  * once, and the claim does not count as an attempt.
  */
-export async function releaseJob(jobId: string, workerId: string, now: number = Date.now()): Promise<boolean> {
+async function releaseJobOnce(jobId: string, workerId: string, now: number = Date.now()): Promise<boolean> {
   const rows = await db
     .update(job)
     .set({
@@ -249,4 +275,44 @@ export async function getJobStatus(jobId: string, viewer: Viewer): Promise<JobSt
     throw e;
   }
   return toJobStatus(row);
+}
+
+// ---------------------------------------------------------------------------
+// The queue's operations, each retried on SQLITE_BUSY (see withBusyRetry). The *Once
+// functions above hold the documentation of what each does.
+// ---------------------------------------------------------------------------
+
+/** Fails jobs whose last allowed attempt's lease expired; returns them (see failAbandonedJobsOnce). */
+export function failAbandonedJobs(now: number = Date.now()): Promise<JobRow[]> {
+  return withBusyRetry(() => failAbandonedJobsOnce(now));
+}
+
+/** The oldest claimable job for `workerId` with a lease of `leaseMs`, or null (see claimNextOnce). */
+export function claimNext(workerId: string, leaseMs: number, now: number = Date.now()): Promise<JobRow | null> {
+  return withBusyRetry(() => claimNextOnce(workerId, leaseMs, now));
+}
+
+/** Extends the lease; false when `workerId` lost the job (see heartbeatOnce). */
+export function heartbeat(jobId: string, workerId: string, leaseMs: number, now: number = Date.now()): Promise<boolean> {
+  return withBusyRetry(() => heartbeatOnce(jobId, workerId, leaseMs, now));
+}
+
+/** Stores the report and finishes the job in one transaction; false when the lease was lost (see completeJobOnce). */
+export function completeJob(jobId: string, workerId: string, report: Report, durationMs: number, now: number = Date.now()): Promise<boolean> {
+  return withBusyRetry(() => completeJobOnce(jobId, workerId, report, durationMs, now));
+}
+
+/** Records a failed attempt: "retry" (queued after a back-off), "failed" (final) or "lost" (see failJobOnce). */
+export function failJob(
+  jobId: string,
+  workerId: string,
+  message: string,
+  options: { now?: number; backoffMs?: (attempts: number) => number } = {},
+): Promise<FailOutcome> {
+  return withBusyRetry(() => failJobOnce(jobId, workerId, message, options));
+}
+
+/** Gives a job back to the queue without counting the attempt (see releaseJobOnce). */
+export function releaseJob(jobId: string, workerId: string, now: number = Date.now()): Promise<boolean> {
+  return withBusyRetry(() => releaseJobOnce(jobId, workerId, now));
 }

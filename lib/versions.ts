@@ -14,7 +14,7 @@ import { specSha256 } from "@/lib/engine/canonical";
 import type { GameSpec, ModelSpec, SpecError } from "@/lib/engine/types";
 import { validateSpec } from "@/lib/engine/validate";
 import { NotFound, PayloadTooLarge, ValidationError } from "@/lib/errors";
-import { enqueueJob } from "@/lib/jobs";
+import { enqueueJob, withBusyRetry } from "@/lib/jobs";
 import { lineAndColumnAt, lineOfPointer, pointerLines } from "@/lib/json-lines";
 import { loadEditableModel, loadVisibleModel, loadVisibleVersion, summarizeVersions, type VersionRow } from "@/lib/models";
 import { sanitizeFileName, SPEC_MAX_BYTES, storeBytes } from "@/lib/storage";
@@ -116,7 +116,7 @@ export async function addVersion(
   const name = sanitizeFileName(options.fileName ?? "spec.json");
   for (let attempt = 0; ; attempt++) {
     try {
-      const created = await db.transaction(async (tx) => {
+      const created = await withBusyRetry(() => db.transaction(async (tx) => {
         const top = await tx.select({ n: max(version.number) }).from(version).where(eq(version.modelId, m.id));
         const number = (top[0]?.n ?? 0) + 1;
         const versionId = crypto.randomUUID();
@@ -155,7 +155,7 @@ export async function addVersion(
         const row = rows[0];
         if (row === undefined) throw new Error("addVersion: the insert returned no row");
         return row;
-      });
+      }));
       pokeWorker();
       return { status: "created", version: await summary(created) };
     } catch (e) {

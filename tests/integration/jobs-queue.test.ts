@@ -12,9 +12,11 @@ import {
   failJob,
   getJob,
   heartbeat,
+  isBusyError,
   LEASE_EXPIRED_MESSAGE,
   leaseExpiredTooOftenMessage,
   releaseJob,
+  withBusyRetry,
 } from "@/lib/jobs";
 import { fakeReport, makeUser, makeVersionRow, migrated } from "./deposit-support";
 
@@ -182,4 +184,45 @@ describe("job queue", () => {
     expect((await claimNext("w2", 60_000, t0 + 2))?.id).toBe(queued.id);
     expect(await failJob(queued.id, "w", "not mine")).toBe("lost");
   });
+});
+
+describe("waiting out a locked database", () => {
+  const busy = () => Object.assign(new Error("SQLITE_BUSY: database is locked"), { code: "SQLITE_BUSY" });
+
+  it("recognises SQLITE_BUSY anywhere in the cause chain", () => {
+    expect(isBusyError(busy())).toBe(true);
+    expect(isBusyError(new Error("Failed query: update job ...", { cause: busy() }))).toBe(true);
+    expect(isBusyError(new Error("UNIQUE constraint failed"))).toBe(false);
+    expect(isBusyError("database is locked")).toBe(false);
+  });
+
+  it("retries a busy operation until it goes through, but not other errors, and gives up after 8 tries", async () => {
+    let calls = 0;
+    expect(
+      await withBusyRetry(async () => {
+        calls += 1;
+        if (calls < 3) throw busy();
+        return "done";
+      }),
+    ).toBe("done");
+    expect(calls).toBe(3);
+
+    calls = 0;
+    await expect(
+      withBusyRetry(async () => {
+        calls += 1;
+        throw new Error("no such table: job");
+      }),
+    ).rejects.toThrow("no such table: job");
+    expect(calls).toBe(1);
+
+    calls = 0;
+    await expect(
+      withBusyRetry(async () => {
+        calls += 1;
+        throw busy();
+      }),
+    ).rejects.toThrow("database is locked");
+    expect(calls).toBe(8);
+  }, 30_000);
 });
