@@ -18,7 +18,7 @@ import type { ModelSpec } from "@/lib/engine/types";
 import type { QueueStatus } from "@/lib/queue";
 import { readReport } from "@/lib/reports";
 import { getVersion, listVersions } from "@/lib/versions";
-import { latestSubmittedVersion, listSubmissionsForModel, loadModelForReview, requireVenueAccess } from "@/lib/venues";
+import { isEditorOf, latestSubmittedVersion, listSubmissionsForModel, loadModelForReview, requireVenueAccess } from "@/lib/venues";
 import { decideAction } from "./actions";
 
 interface Props {
@@ -57,13 +57,14 @@ export default async function ReviewPage({ params, searchParams }: Props) {
   if (m.venueId !== v.id) notFound();
   const viewer = { id: me.userId, role: me.role };
   const ver = await onPage(() => getVersion(m.id, n, viewer));
-  const [reportView, versions, submissions, decisions, audit, latest] = await Promise.all([
+  const [reportView, versions, submissions, decisions, audit, latest, editsVenue] = await Promise.all([
     readReport(ver.id),
     listVersions(m.id, viewer),
     listSubmissionsForModel(m.id),
     listDecisionsForModel(m.id),
     auditTrailForModel(m.id),
     latestSubmittedVersion(v.id, m.id),
+    isEditorOf(me.userId, v.id),
   ]);
   const spec = parseSpec(ver.specText);
   const report = reportView?.report ?? null;
@@ -160,6 +161,14 @@ export default async function ReviewPage({ params, searchParams }: Props) {
               </p>
             ) : isOwner ? (
               <p className="text-sm text-ink-soft">This is your own model: another editor of the venue has to decide on it.</p>
+            ) : !editsVenue ? (
+              <p className="text-sm text-ink-soft">
+                Only the venue&apos;s editors decide. An administrator can assign editors under{" "}
+                <Link className="rp-link" href="/admin/venues">
+                  Administration → Venues
+                </Link>
+                .
+              </p>
             ) : (
               <DecisionForm action={decideAction.bind(null, { venue: v.slug, slug: m.slug, number: n })} versionNumber={n} verifiedBlockedReason={verifiedBlockedReason} />
             )}
