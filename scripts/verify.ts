@@ -21,7 +21,7 @@ function readInput(source: string): { bytes: Uint8Array } | { error: string } {
     return { bytes: source === "-" ? readFileSync(0) : readFileSync(source) };
   } catch (e) {
     const code = e instanceof Error && "code" in e ? String((e as NodeJS.ErrnoException).code) : "";
-    const why = code === "ENOENT" ? "there is no such file" : code === "EISDIR" ? "it is a directory" : code === "EACCES" ? "permission denied" : e instanceof Error ? e.message : String(e);
+    const why = code === "ENOENT" ? "there is no such file" : code === "EISDIR" ? "it is a directory" : e instanceof Error ? e.message : String(e);
     return { error: `The spec ${source === "-" ? "on standard input" : `file ${source}`} could not be read: ${why}.` };
   }
 }
