@@ -10,9 +10,9 @@ import { env } from "@/lib/env";
 import { sendMail, type OutgoingMail } from "@/lib/mail";
 import type { Notifier } from "./loop";
 
-/** The page of one version's report (also the link in the mail). */
+/** The author's page of one version and its report in the workspace (the link in the mail). */
 export function versionPageUrl(modelSlug: string, versionNumber: number): string {
-  return `${env.authUrl.replace(/\/$/, "")}/models/${encodeURIComponent(modelSlug)}/versions/${versionNumber}`;
+  return `${env.authUrl.replace(/\/$/, "")}/workspace/models/${encodeURIComponent(modelSlug)}/v/${versionNumber}`;
 }
 
 const VERDICT_SENTENCES: Record<string, string> = {

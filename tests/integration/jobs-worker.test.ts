@@ -131,7 +131,7 @@ describe("verification worker loop", () => {
 describe("author mail", () => {
   it("names the verdict and counts, or the final error, with the report link", () => {
     const url = versionPageUrl("rp-abc234", 2);
-    expect(url).toBe("http://localhost:3000/models/rp-abc234/versions/2");
+    expect(url).toBe("http://localhost:3000/workspace/models/rp-abc234/v/2");
     const done = verificationFinishedMail({
       to: "a@example.test",
       name: "Ada",
