@@ -1,15 +1,17 @@
 /**
- * Child process for the claim-atomicity test: claims jobs until the queue stays empty and
- * prints the ids it got as JSON. Run as: node --conditions=react-server --import tsx jobs-claimer.ts <workerId> <startAtMs>
+ * Child process for the claim-atomicity test: prints "ready" once connected, waits for a line
+ * on stdin (so all claimers start together), claims jobs until the queue stays empty and
+ * prints the ids it got as JSON on its last line.
+ * Run as: node --conditions=react-server --import tsx jobs-claimer.ts <workerId>
  */
 import { migrateDatabase } from "@/db/migrate";
 import { claimNext } from "@/lib/jobs";
 
 const workerId = process.argv[2] ?? "claimer";
-// All claimers start at the same wall-clock moment so they really compete.
-const startAt = Number(process.argv[3] ?? "0");
 await migrateDatabase();
-await new Promise((resolve) => setTimeout(resolve, Math.max(0, startAt - Date.now())));
+process.stdout.write("ready\n");
+await new Promise<void>((resolve) => process.stdin.once("data", () => resolve()));
+process.stdin.pause();
 const claimed: string[] = [];
 let misses = 0;
 while (misses < 5) {
@@ -22,4 +24,4 @@ while (misses < 5) {
     claimed.push(job.id);
   }
 }
-process.stdout.write(JSON.stringify(claimed));
+process.stdout.write(`${JSON.stringify(claimed)}\n`);

@@ -9,23 +9,36 @@ beforeAll(async () => {
   await migrated();
 });
 
-function runClaimer(workerId: string, startAt: number): Promise<{ ids: string[]; stderr: string }> {
-  return new Promise((resolve, reject) => {
-    const child = spawn(
-      process.execPath,
-      ["--conditions=react-server", "--import", "tsx", path.join(import.meta.dirname, "jobs-claimer.ts"), workerId, String(startAt)],
-      { cwd: path.resolve(import.meta.dirname, "../.."), env: process.env, stdio: ["ignore", "pipe", "pipe"] },
-    );
-    let out = "";
-    let err = "";
-    child.stdout.on("data", (d: Buffer) => (out += d.toString()));
-    child.stderr.on("data", (d: Buffer) => (err += d.toString()));
+interface Claimer {
+  ready: Promise<void>;
+  go: () => void;
+  done: Promise<string[]>;
+}
+
+function startClaimer(workerId: string): Claimer {
+  const child = spawn(
+    process.execPath,
+    ["--conditions=react-server", "--import", "tsx", path.join(import.meta.dirname, "jobs-claimer.ts"), workerId],
+    { cwd: path.resolve(import.meta.dirname, "../.."), env: process.env, stdio: ["pipe", "pipe", "pipe"] },
+  );
+  let out = "";
+  let err = "";
+  let markReady: () => void = () => {};
+  const ready = new Promise<void>((resolve) => (markReady = resolve));
+  child.stdout.on("data", (d: Buffer) => {
+    out += d.toString();
+    if (out.startsWith("ready\n")) markReady();
+  });
+  child.stderr.on("data", (d: Buffer) => (err += d.toString()));
+  const done = new Promise<string[]>((resolve, reject) => {
     child.on("error", reject);
     child.on("exit", (code) => {
+      const last = out.trim().split("\n").pop() ?? "";
       if (code !== 0) reject(new Error(`claimer ${workerId} exited with ${code}: ${err}`));
-      else resolve({ ids: JSON.parse(out) as string[], stderr: err });
+      else resolve(JSON.parse(last) as string[]);
     });
   });
+  return { ready, go: () => child.stdin.end("go\n"), done };
 }
 
 describe("claiming from several processes", () => {
@@ -36,8 +49,11 @@ describe("claiming from several processes", () => {
       const { versionId } = await makeVersionRow(owner.id);
       jobIds.push((await enqueueJob(versionId)).id);
     }
-    const startAt = Date.now() + 4000;
-    const results = await Promise.all(["p1", "p2", "p3"].map((w) => runClaimer(w, startAt)));
+    // Start all three, wait until each is connected, then let them loose at once.
+    const claimers = ["p1", "p2", "p3"].map(startClaimer);
+    await Promise.all(claimers.map((c) => c.ready));
+    for (const c of claimers) c.go();
+    const results = (await Promise.all(claimers.map((c) => c.done))).map((ids) => ({ ids }));
     const all = results.flatMap((r) => r.ids);
     expect(new Set(all).size).toBe(all.length);
     expect([...all].sort()).toEqual([...jobIds].sort());
