@@ -104,7 +104,8 @@ export async function addVersion(
   options: { fileName?: string } = {},
 ): Promise<AddVersionResult> {
   const m = await loadEditableModel(modelIdOrSlug, uploader);
-  const uploaderId = uploader?.id ?? "";
+  if (uploader === null) throw new NotFound("model"); // loadEditableModel refused anonymous already; this narrows the type
+  const uploaderId = uploader.id;
   const spec = checkSpecText(specText);
   const sha = specSha256(spec);
 
