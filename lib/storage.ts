@@ -11,7 +11,7 @@
 import "server-only";
 import { createHash } from "node:crypto";
 import { createReadStream } from "node:fs";
-import { mkdir, open, rename, rm, stat } from "node:fs/promises";
+import { mkdir, open, readdir, rename, rm, stat } from "node:fs/promises";
 import path from "node:path";
 import { Readable } from "node:stream";
 import { env } from "@/lib/env";
@@ -282,4 +282,31 @@ export function declaredLength(request: Request): number | null {
   const value = request.headers.get("content-length");
   if (value === null || !/^\d+$/.test(value)) return null;
   return Number(value);
+}
+
+/**
+ * Deletes temporary upload files older than `maxAgeMs` (left by a process killed mid-upload;
+ * a live upload renames or removes its own). Returns how many were removed.
+ */
+export async function sweepTempUploads(maxAgeMs = 60 * 60 * 1000, now: number = Date.now()): Promise<number> {
+  const tmpDir = path.join(env.uploadsDir, ".tmp");
+  let names: string[];
+  try {
+    names = await readdir(tmpDir);
+  } catch {
+    return 0;
+  }
+  let removed = 0;
+  for (const name of names) {
+    const full = path.join(tmpDir, name);
+    try {
+      if (now - (await stat(full)).mtimeMs > maxAgeMs) {
+        await rm(full, { force: true });
+        removed += 1;
+      }
+    } catch {
+      // gone meanwhile
+    }
+  }
+  return removed;
 }

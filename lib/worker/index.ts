@@ -4,6 +4,7 @@
  */
 import "server-only";
 import { env } from "@/lib/env";
+import { sweepTempUploads } from "@/lib/storage";
 import { mailAuthor } from "./notify";
 import { VerificationWorker, type WorkerOptions } from "./loop";
 
@@ -19,6 +20,8 @@ export function startInlineWorker(options: WorkerOptions = {}): VerificationWork
   if (slot.__restpointWorker === undefined) {
     const worker = new VerificationWorker({ notify: mailAuthor, ...options });
     worker.start();
+    // Uploads cut off by a crash leave temporary files; the server start is a good moment to clear them.
+    void sweepTempUploads().catch((e: unknown) => console.warn("[restpoint] could not sweep temporary uploads:", e));
     slot.__restpointWorker = worker;
   }
   return slot.__restpointWorker;

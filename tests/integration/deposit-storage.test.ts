@@ -1,5 +1,5 @@
 import "./deposit-env";
-import { existsSync, readdirSync, readFileSync } from "node:fs";
+import { existsSync, mkdirSync, readdirSync, readFileSync, utimesSync, writeFileSync } from "node:fs";
 import path from "node:path";
 import { beforeAll, describe, expect, it } from "vitest";
 import { Forbidden, NotFound, PayloadTooLarge, ValidationError } from "@/lib/errors";
@@ -14,6 +14,7 @@ import {
   SPEC_MAX_BYTES,
   storeUpload,
   SUPPLEMENT_MAX_BYTES,
+  sweepTempUploads,
 } from "@/lib/storage";
 import { addVersion } from "@/lib/versions";
 import { uploadsDir } from "./deposit-env";
@@ -202,5 +203,20 @@ describe("supplementary files", () => {
     const forbidden = await caught(attachSupplement(version.id, bob, { body: streamOf("a"), name: "x.csv" }));
     expect(forbidden).toBeInstanceOf(Forbidden);
     expect((forbidden as Forbidden).message).toBe("Only the model's owner may attach files to it.");
+  });
+});
+
+describe("temporary uploads", () => {
+  it("sweeps temporary files left by a crash, keeping recent ones", async () => {
+    const dir = path.join(uploadsDir, ".tmp");
+    mkdirSync(dir, { recursive: true });
+    writeFileSync(path.join(dir, "old"), "x");
+    writeFileSync(path.join(dir, "new"), "y");
+    const twoHoursAgo = (Date.now() - 2 * 3600_000) / 1000;
+    utimesSync(path.join(dir, "old"), twoHoursAgo, twoHoursAgo);
+    expect(await sweepTempUploads()).toBe(1);
+    expect(readdirSync(dir)).toEqual(["new"]);
+    expect(await sweepTempUploads(0, Date.now() + 1000)).toBe(1);
+    expect(readdirSync(dir)).toEqual([]);
   });
 });
