@@ -4,7 +4,6 @@
  * downloads with the citation. Every user-supplied string is rendered as text.
  */
 import Link from "next/link";
-import { ExperimentFigures } from "@/components/plots";
 import { ReportView } from "@/components/report";
 import { VerdictTag } from "@/components/status/VerdictTag";
 import { Notice } from "@/components/ui/Notice";
@@ -15,6 +14,7 @@ import { DynamicsPanel } from "./DynamicsPanel";
 import { dynamicsLabel } from "./labels";
 import { PayoffTable } from "./PayoffTable";
 import { plotGameOf } from "./plot-game";
+import { RegisteredFigures } from "./RegisteredFigures";
 import { TryYourOwnValues } from "./TryYourOwnValues";
 
 const dateFormat = new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "long", year: "numeric", timeZone: "UTC" });
@@ -129,7 +129,7 @@ export function PublicVersionView({ data }: { data: PublicVersion }) {
                 specClaims={spec?.claims}
                 figures={
                   game === undefined ? undefined : (
-                    <ExperimentFigures game={plotGameOf(game)} experiments={report.experiments} restPoints={report.restPoints ?? []} />
+                    <RegisteredFigures reportUrl={`${base}/report.json`} game={plotGameOf(game)} />
                   )
                 }
               />

@@ -58,6 +58,7 @@ describe("a reader without an account", () => {
     await results.first().getByRole("link", { name: "Meadow foragers: patch defence" }).click();
     await page.waitForURL(`**/models/${meadow}`);
     await expect.poll(() => page.getByRole("heading", { level: 1 }).innerText()).toContain("Territory holding among meadow foragers");
+    await page.getByTestId("registered-figures").waitFor();
     const registered = await seriesPoints(page, "[data-testid=report-view]");
     expect(registered.length).toBeGreaterThan(100);
 

@@ -54,6 +54,18 @@ describe("public downloads", () => {
     expect(await res.text()).toBe(specText);
   });
 
+  it("answers a repeated download with 304 when the reader's copy is current", async () => {
+    const first = await call("report.json", publicSlug);
+    const etag = first.headers.get("etag") ?? "";
+    expect(etag).toMatch(/^"[A-Za-z0-9_-]{32}"$/);
+    const again = await routes["report.json"]?.(
+      new Request(`http://localhost/models/${publicSlug}/v/1/report.json`, { headers: { "if-none-match": etag } }),
+      { params: Promise.resolve({ slug: publicSlug, number: "1" }) },
+    );
+    expect(again?.status).toBe(304);
+    expect(await again?.text()).toBe("");
+  });
+
   it("serves the server's stored report", async () => {
     const res = await call("report.json", publicSlug);
     expect(res.status).toBe(200);
