@@ -6,8 +6,10 @@ import { db } from "@/db/client";
 import { model, version } from "@/db/schema";
 import { ALPINE_BUMBLEBEES, DEMO_MODELS, seedDemoModels } from "@/lib/demo/models";
 import { NotFound } from "@/lib/errors";
+import { listAudit } from "@/lib/audit";
+import { attachSupplement } from "@/lib/files";
 import { getJobStatus } from "@/lib/jobs";
-import { createModel } from "@/lib/models";
+import { createModel, updateModel } from "@/lib/models";
 import { addVersion } from "@/lib/versions";
 import { startInlineWorker } from "@/lib/worker";
 import { makeUser, makeVenue, migrated } from "./deposit-support";
@@ -38,6 +40,30 @@ describe("job status for polling", () => {
     expect(e).toBeInstanceOf(NotFound);
     expect((e as NotFound).message).toBe("No such job.");
     expect(await caught(getJobStatus("no-such-job", alice))).toBeInstanceOf(NotFound);
+  });
+});
+
+describe("audit trail", () => {
+  it("lists what happened to a model, newest first, with the details of each step", async () => {
+    const alice = await makeUser("Audited");
+    const m = await createModel(alice, { title: "Audited model" });
+    const { version: v } = await addVersion(m.id, JSON.stringify(ALPINE_BUMBLEBEES), alice, { fileName: "a.json" });
+    const body = new ReadableStream<Uint8Array>({
+      start(c) {
+        c.enqueue(new TextEncoder().encode("t,x\n"));
+        c.close();
+      },
+    });
+    await attachSupplement(v.id, alice, { body, name: "runs.csv" });
+    await updateModel(m.id, alice, { title: "Audited model", visibility: "public" });
+    const events = await listAudit({ modelId: m.id });
+    expect(events.map((e) => e.action)).toEqual(["model.updated", "file.attached", "version.uploaded", "model.created"]);
+    expect(events.every((e) => e.actorId === alice.id)).toBe(true);
+    expect(events[0]?.detail).toEqual({ visibility: "public", previousVisibility: "private" });
+    expect(events[1]?.detail).toMatchObject({ name: "runs.csv", size: 4, mediaType: "text/csv" });
+    expect(events[2]?.detail).toMatchObject({ number: 1, specSha256: v.specSha256, fileName: "a.json" });
+    expect(events[2]?.versionId).toBe(v.id);
+    expect(await listAudit({ modelId: m.id, limit: 1 })).toHaveLength(1);
   });
 });
 
