@@ -3,10 +3,7 @@
 import useSWR from "swr";
 import type { FileInfo } from "@/lib/types/deposit";
 import { fetchJson } from "./api-client";
-
-export function filesKey(slug: string, number: number): string {
-  return `/api/v1/models/${encodeURIComponent(slug)}/versions/${number}/files`;
-}
+import { filesKey } from "./keys";
 
 export function formatBytes(n: number): string {
   if (n >= 1_000_000) return `${(n / 1_000_000).toFixed(1)} MB`;

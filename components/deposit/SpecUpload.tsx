@@ -4,6 +4,7 @@
  * "identical to vN", or every problem with its JSON pointer and line, so the author can fix
  * the file and drop it again.
  */
+import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useSWRConfig } from "swr";
 import { SpecErrors } from "@/components/report/SpecErrors";
@@ -31,11 +32,14 @@ function isVersionAnswer(body: unknown): body is VersionAnswer {
 export function SpecUpload({ slug, modelKey }: { slug: string; modelKey: string }) {
   const [shown, setShown] = useState<Shown | null>(null);
   const { mutate } = useSWRConfig();
+  const router = useRouter();
 
   function onResult({ fileName, status, body }: UploadOutcome) {
     if (status >= 200 && status < 300 && isVersionAnswer(body)) {
       setShown({ kind: body.status, fileName, number: body.version.number });
       void mutate(modelKey);
+      // Server-rendered parts (headings, the model list) learn of the new version too.
+      if (body.status === "created") router.refresh();
       return;
     }
     const error =

@@ -3,7 +3,7 @@
 import { useState } from "react";
 import { useSWRConfig } from "swr";
 import { toApiError } from "./api-client";
-import { filesKey } from "./FileList";
+import { filesKey } from "./keys";
 import { SUPPLEMENT_ACCEPT, SUPPLEMENT_MAX_BYTES, SUPPLEMENT_NOTE } from "./limits";
 import { UploadWidget, type UploadOutcome } from "./UploadWidget";
 

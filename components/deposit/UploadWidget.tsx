@@ -9,6 +9,7 @@ import Dashboard from "@uppy/react/dashboard";
 import XHRUpload from "@uppy/xhr-upload";
 import "@uppy/core/css/style.min.css";
 import "@uppy/dashboard/css/style.min.css";
+import "./uppy-theme.css";
 import { useEffect, useRef, useState } from "react";
 
 export interface UploadOutcome {
@@ -97,7 +98,11 @@ export function UploadWidget({ id, endpoint, fieldName, restrictions, note, onRe
   }, [uppy]);
 
   return (
-    <div data-testid={`${id}-widget`}>
+    <div data-testid={`${id}-widget`} className="rp-upload flex flex-col gap-2">
+      {/* The limits, stated before anything is chosen (the widget checks them too, before sending). */}
+      <p id={`${id}-limits`} className="text-sm text-ink-soft" data-testid={`${id}-limits`}>
+        {note}
+      </p>
       <Dashboard
         uppy={uppy}
         note={note}
@@ -107,6 +112,7 @@ export function UploadWidget({ id, endpoint, fieldName, restrictions, note, onRe
         proudlyDisplayPoweredByUppy={false}
         hideProgressDetails={false}
         showRemoveButtonAfterComplete={false}
+        aria-describedby={`${id}-limits`}
       />
     </div>
   );

@@ -8,12 +8,7 @@ import useSWR from "swr";
 import type { ModelView } from "@/lib/types/deposit";
 import { fetchJson } from "./api-client";
 import { isPending, JobState } from "./JobState";
-
-export const POLL_MS = 1500;
-
-export function modelKey(slug: string): string {
-  return `/api/v1/models/${encodeURIComponent(slug)}`;
-}
+import { modelKey, POLL_MS } from "./keys";
 
 export function VersionList({ initial }: { initial: ModelView }) {
   const key = modelKey(initial.slug);

@@ -9,7 +9,7 @@ import useSWR from "swr";
 import type { JobStatus } from "@/lib/types/jobs";
 import { fetchJson } from "./api-client";
 import { JobState } from "./JobState";
-import { POLL_MS } from "./VersionList";
+import { POLL_MS, reportKey } from "./keys";
 
 interface ReportAnswer {
   state: "queued" | "running" | "finished" | "failed";
@@ -18,7 +18,7 @@ interface ReportAnswer {
 
 export function VersionStatus({ slug, number, initialJob }: { slug: string; number: number; initialJob: JobStatus | null }) {
   const router = useRouter();
-  const { data } = useSWR<ReportAnswer>(`/api/v1/models/${encodeURIComponent(slug)}/versions/${number}/report`, fetchJson, {
+  const { data } = useSWR<ReportAnswer>(reportKey(slug, number), fetchJson, {
     fallbackData: { state: initialJob?.state ?? "queued", job: initialJob },
     refreshInterval: (latest) => (latest === undefined || latest.state === "queued" || latest.state === "running" ? POLL_MS : 0),
   });

@@ -39,7 +39,7 @@ export function ClaimsTable({ claims, specClaims, caption = "Claims" }: ClaimsTa
                 data-status={c.status}
                 className="border-b border-line align-top last:border-0"
               >
-                <th scope="row" className="py-2 pr-4 font-mono text-xs font-normal break-all">
+                <th scope="row" className="min-w-[9rem] py-2 pr-4 font-mono text-xs font-normal break-words">
                   {c.id}
                 </th>
                 <td className="py-2 pr-4 whitespace-nowrap">{claimKindLabel(c.kind)}</td>

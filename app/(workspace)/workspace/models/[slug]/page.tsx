@@ -4,7 +4,8 @@ import { notFound } from "next/navigation";
 import { ModelForm } from "@/components/deposit/ModelForm";
 import { formValuesOf } from "@/components/deposit/model-form";
 import { SpecUpload } from "@/components/deposit/SpecUpload";
-import { modelKey, VersionList } from "@/components/deposit/VersionList";
+import { modelKey } from "@/components/deposit/keys";
+import { VersionList } from "@/components/deposit/VersionList";
 import { Notice } from "@/components/ui/Notice";
 import { PageHeader, Section } from "@/components/ui/PageHeader";
 import { onPage, pageUser } from "@/lib/authz";
@@ -83,14 +84,53 @@ export default async function ModelEntryPage({ params, searchParams }: Props) {
       </Section>
 
       <Section id="entry" title="The entry" description="Title, manuscript, authors, venue and visibility. Versions are not changed by this form.">
-        <div className="rp-card p-6">
-          <ModelForm
-            initial={formValuesOf(model)}
-            venues={venues.map((v) => ({ id: v.id, name: v.name }))}
-            action={updateModelAction.bind(null, model.slug)}
-            submitLabel="Save the entry"
-          />
-        </div>
+        <dl className="grid gap-x-6 gap-y-2 text-sm sm:grid-cols-[10rem_1fr]" data-testid="entry-summary">
+          <dt className="text-ink-faint">Authors</dt>
+          <dd>
+            {model.authors.length === 0
+              ? "—"
+              : model.authors.map((a, i) => (
+                  <span key={i}>
+                    {i > 0 && "; "}
+                    {a.name}
+                    {a.orcid !== null && (
+                      <>
+                        {" "}
+                        <a className="rp-link font-mono text-xs" href={`https://orcid.org/${a.orcid}`}>
+                          {a.orcid}
+                        </a>
+                      </>
+                    )}
+                  </span>
+                ))}
+          </dd>
+          <dt className="text-ink-faint">Manuscript</dt>
+          <dd>
+            {[model.manuscriptTitle, model.year === null ? null : String(model.year)].filter((x) => x !== null).join(", ") || "—"}
+            {model.doi !== null && (
+              <>
+                {" · "}
+                <a className="rp-link" href={`https://doi.org/${model.doi}`}>
+                  doi:{model.doi}
+                </a>
+              </>
+            )}
+          </dd>
+        </dl>
+        <details className="rp-card group p-0">
+          <summary className="cursor-pointer list-none px-6 py-4 text-sm font-semibold text-tide">
+            <span className="group-open:hidden">Edit the entry</span>
+            <span className="hidden group-open:inline">Close the form</span>
+          </summary>
+          <div className="border-t border-line p-6">
+            <ModelForm
+              initial={formValuesOf(model)}
+              venues={venues.map((v) => ({ id: v.id, name: v.name }))}
+              action={updateModelAction.bind(null, model.slug)}
+              submitLabel="Save the entry"
+            />
+          </div>
+        </details>
       </Section>
     </div>
   );
