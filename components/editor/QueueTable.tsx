@@ -9,7 +9,7 @@ import { useCallback, useEffect, useId, useRef, useState } from "react";
 import { VerdictTag } from "@/components/status/VerdictTag";
 import { Button, buttonClass } from "@/components/ui/Button";
 import type { QueuePage, QueueSort, QueueStatus, QueueVerdict } from "@/lib/queue";
-import { QUEUE_STATUS_ORDER, SORT_WORDS, STATUS_WORDS, formatWhen } from "./labels";
+import { QUEUE_STATUS_ORDER, SORT_WORDS, STATUS_WORDS, formatDay, formatWhen } from "./labels";
 import { StatusPill } from "./StatusPill";
 
 export interface QueueControls {
@@ -268,8 +268,8 @@ export function QueueTable({ venueSlug, initial }: { venueSlug: string; initial:
         </div>
       ) : null}
 
-      <div className="overflow-x-auto rounded-[var(--radius-card)] border border-line bg-surface">
-        <table className="w-full min-w-[52rem] border-collapse text-sm" data-testid="queue-table">
+      <div className="relative overflow-x-auto rounded-[var(--radius-card)] border border-line bg-surface">
+        <table className="w-full min-w-[48rem] border-collapse text-sm" data-testid="queue-table">
           <caption className="sr-only">Submissions, one row per model at its newest submitted version</caption>
           <thead className="border-b border-line bg-sunken/60 text-xs">
             <tr>
@@ -290,7 +290,7 @@ export function QueueTable({ venueSlug, initial }: { venueSlug: string; initial:
               const href = `/workspace/venues/${encodeURIComponent(venueSlug)}/review/${encodeURIComponent(r.model.slug)}/v/${r.version.number}`;
               return (
                 <tr key={r.submissionId} className="border-b border-line last:border-b-0 hover:bg-sunken/40" data-testid="queue-row" data-model={r.model.slug}>
-                  <td className="min-w-[14rem] max-w-[22rem] px-3 py-2.5">
+                  <td className="min-w-[12rem] max-w-[20rem] px-3 py-2.5">
                     <Link href={href} className="font-semibold text-ink hover:text-tide hover:underline">
                       {r.model.title}
                     </Link>
@@ -299,13 +299,15 @@ export function QueueTable({ venueSlug, initial }: { venueSlug: string; initial:
                       {r.model.visibility === "public" ? " · public" : " · private"}
                     </div>
                   </td>
-                  <td className="px-3 py-2.5">
-                    <div>{r.author.name}</div>
-                    <div className="text-2xs text-ink-faint">{r.author.email}</div>
+                  <td className="max-w-[11rem] px-3 py-2.5">
+                    <div className="truncate">{r.author.name}</div>
+                    <div className="truncate text-2xs text-ink-faint" title={r.author.email}>
+                      {r.author.email}
+                    </div>
                   </td>
                   <td className="px-3 py-2.5 font-mono text-xs whitespace-nowrap">
                     v{r.version.number}
-                    {r.submittedVersions > 1 ? <span className="text-ink-faint"> ({r.submittedVersions} sent)</span> : null}
+                    {r.submittedVersions > 1 ? <div className="text-2xs text-ink-faint">{r.submittedVersions} sent</div> : null}
                   </td>
                   <td className="px-3 py-2.5">{r.verdict === null ? <span className="text-xs text-ink-faint">not yet</span> : <VerdictTag verdict={r.verdict} size="sm" />}</td>
                   <td className="px-3 py-2.5">
@@ -314,7 +316,11 @@ export function QueueTable({ venueSlug, initial }: { venueSlug: string; initial:
                   <td className="px-3 py-2.5">
                     <StatusPill status={r.status} />
                   </td>
-                  <td className="px-3 py-2.5 text-xs whitespace-nowrap text-ink-soft">{formatWhen(r.submittedAt)}</td>
+                  <td className="px-3 py-2.5 text-xs text-ink-soft">
+                    <time dateTime={r.submittedAt} title={formatWhen(r.submittedAt)}>
+                      {formatDay(r.submittedAt)}
+                    </time>
+                  </td>
                   <td className="px-3 py-2.5 text-right">
                     <Link href={href} className={buttonClass("secondary", "px-3 py-1 text-xs")} aria-label={`Review ${r.model.title}, version ${r.version.number}`}>
                       Review

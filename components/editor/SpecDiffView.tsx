@@ -6,7 +6,7 @@ import type { DiffRow } from "@/lib/spec-diff";
 
 export function SpecDiffView({ rows, fromLabel, toLabel }: { rows: readonly DiffRow[]; fromLabel: string; toLabel: string }) {
   return (
-    <div className="overflow-x-auto rounded-[var(--radius-card)] border border-line bg-surface" data-testid="spec-diff">
+    <div className="relative overflow-x-auto rounded-[var(--radius-card)] border border-line bg-surface" data-testid="spec-diff">
       <table className="w-full border-collapse font-mono text-xs leading-5">
         <caption className="sr-only">
           Line diff from {fromLabel} to {toLabel}: removed lines are marked minus, added lines plus

@@ -43,7 +43,7 @@ export function VerdictDiffView({ diff, fromLabel, toLabel }: { diff: VerdictDif
           {diff.counts.added} added · {diff.counts.removed} removed · {diff.counts.changed} changed · {diff.counts.unchanged} same
         </span>
       </div>
-      <div className="overflow-x-auto rounded-[var(--radius-card)] border border-line bg-surface">
+      <div className="relative overflow-x-auto rounded-[var(--radius-card)] border border-line bg-surface">
         <table className="w-full border-collapse text-sm">
           <caption className="sr-only">Claims compared by id</caption>
           <thead className="border-b border-line bg-sunken/60 text-xs">

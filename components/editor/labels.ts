@@ -64,3 +64,8 @@ export function formatWhen(iso: string): string {
   const time = d.toLocaleTimeString("en-GB", { hour: "2-digit", minute: "2-digit", timeZone: "UTC" });
   return `${date}, ${time} UTC`;
 }
+
+/** "2 Dec 2026" (UTC). */
+export function formatDay(iso: string): string {
+  return new Date(iso).toLocaleDateString("en-GB", { day: "numeric", month: "short", year: "numeric", timeZone: "UTC" });
+}

@@ -186,7 +186,8 @@ export default async function ReviewPage({ params, searchParams }: Props) {
         )}
       </Section>
 
-      <div className="grid gap-6 md:grid-cols-2 xl:grid-cols-3">
+      <div className="grid items-start gap-6 md:grid-cols-2">
+        <div className="flex flex-col gap-6">
         <section aria-labelledby="files-title" className="rp-card flex flex-col gap-3 p-5">
           <h2 id="files-title" className="text-lg font-semibold">
             The authors&apos; files
@@ -238,6 +239,7 @@ export default async function ReviewPage({ params, searchParams }: Props) {
             })}
           </ul>
         </section>
+        </div>
         <BadgeSnippets slug={m.slug} number={n} isPublic={m.visibility === "public"} revision={decision?.id ?? report?.verdict ?? "pending"} />
       </div>
 
