@@ -63,8 +63,8 @@ export function SpecUpload({ slug, modelKey }: { slug: string; modelKey: string 
       <div aria-live="polite" data-testid="spec-upload-result">
         {shown?.kind === "created" && (
           <p className="rounded-control border border-confirmed/40 bg-confirmed-wash px-3 py-2 text-sm">
-            <strong>v{shown.number}</strong> was made from {shown.fileName}. It is queued for verification; its status
-            below updates by itself.
+            <strong>v{shown.number}</strong> was made from {shown.fileName}. It was queued for verification; its
+            status in the list below updates by itself.
           </p>
         )}
         {shown?.kind === "identical" && (

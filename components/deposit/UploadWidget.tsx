@@ -83,9 +83,11 @@ export function UploadWidget({ id, endpoint, fieldName, restrictions, note, onRe
         body: xhr === null ? null : parseBody(xhr.responseText),
       });
     };
-    const onComplete = () => {
-      // Leave the finished list visible a moment, then make room for the next file.
-      window.setTimeout(() => uppy.clear(), 1500);
+    const onComplete = (result: { failed?: unknown[] }) => {
+      // A refused file is explained beside the widget, and retrying the same bytes cannot
+      // help: clear at once. A finished list stays visible a moment, then makes room.
+      const failed = (result.failed?.length ?? 0) > 0;
+      window.setTimeout(() => uppy.clear(), failed ? 0 : 1500);
     };
     uppy.on("upload-success", onSuccess);
     uppy.on("upload-error", onError);

@@ -185,6 +185,10 @@ describe("an author depositing a model", () => {
     await list.getByText(`Restpoint: version 2 of "${title}" is confirmed`).click();
     await expect(page.getByTestId("mail-message").textContent()).resolves.toContain("Verdict: confirmed.");
     await screenshot(page, "deposit-captured-mail");
+    // The mail's link leads to the version's report.
+    await page.getByTestId("mail-message").getByTestId("mail-link").first().click();
+    await page.waitForURL(`**/workspace/models/${slug}/v/2`);
+    await page.getByTestId("report-view").waitFor();
   });
 });
 

@@ -57,7 +57,7 @@ export default async function ModelEntryPage({ params, searchParams }: Props) {
           ) : undefined
         }
       />
-      {created && (
+      {created && latest === undefined && (
         <Notice tone="success" title="The model entry was created.">
           Upload its specification below to make v1; the re-run starts by itself.
         </Notice>

@@ -63,6 +63,9 @@ export default async function VersionPage({ params }: Props) {
             <Link className="rp-link font-semibold" href={`/workspace/models/${model.slug}`}>
               All versions
             </Link>
+            <a className="rp-link" href="#files">
+              Files ({version.files.length})
+            </a>
             {report !== null && (
               <a className="rp-link" href={`${apiBase}/report`}>
                 Report as JSON
