@@ -5,7 +5,7 @@
  * and by the claims.
  */
 import type { Budget } from "./budget";
-import { vectorField } from "./dynamics";
+import { vectorField, type VectorField } from "./dynamics";
 import { essSymmetric, type EssResult } from "./ess";
 import { bimatrixNash, symmetricNash } from "./nash";
 import {
@@ -49,10 +49,13 @@ export function canEnumerate(game: CompiledGame): boolean {
 const REPLICATOR: DynamicsSpec = { kind: "replicator" };
 
 /** Stability, Nash and ESS of one rest point of the replicator dynamics. */
-export function analyzePoint(game: CompiledGame, state: Float64Array, support: number[], dynamics: DynamicsSpec = REPLICATOR): AnalyzedPoint {
-  const field = vectorField(game, dynamics);
-  const dim = stateDimension(game);
-  const J = new Float64Array(dim * dim);
+export function analyzePoint(
+  game: CompiledGame,
+  state: Float64Array,
+  support: number[],
+  field: VectorField = vectorField(game, REPLICATOR),
+  J: Float64Array = new Float64Array(stateDimension(game) ** 2),
+): AnalyzedPoint {
   field.jacobian(state, J);
   const st = classifyRestPoint(J, layoutOf(game));
   const nash = game.kind === "symmetric" ? symmetricNash(game.A, game.n, state).nash : bimatrixNash(game.A, game.B, game.m, game.k, state).nash;
@@ -75,9 +78,11 @@ export function analyzeGame(game: CompiledGame, budget?: Budget): Analysis {
   const set: RestPointSet = game.kind === "symmetric" ? symmetricRestPoints(game.A, game.n, budget) : bimatrixRestPoints(game.A, game.B, game.m, game.k, budget);
   const points: AnalyzedPoint[] = [];
   const sorted = [...set.points].sort((a, b) => compareStates(a.state, b.state));
+  const field = vectorField(game, REPLICATOR);
+  const J = new Float64Array(stateDimension(game) ** 2);
   for (const p of sorted) {
     budget?.checkTime();
-    points.push(analyzePoint(game, p.state, p.support));
+    points.push(analyzePoint(game, p.state, p.support, field, J));
   }
   return { game, enumerated: true, points, continua: set.continua, undecided: set.undecided };
 }

@@ -141,13 +141,208 @@ export function solveGeneral(Min: Float64Array, bin: Float64Array, r: number, c:
 }
 
 /**
- * Eigenvalues of a general real n x n matrix (row-major), as [re, im] pairs, via the
- * Hessenberg reduction and shifted QR iteration of ml-matrix's EigenvalueDecomposition
- * (after JAMA / EISPACK hqr2).
+ * Reduces the n x n row-major matrix H in place to upper Hessenberg form by Householder
+ * similarity transformations (Golub & Van Loan alg. 7.4.2; JAMA's orthes).
+ */
+function hessenberg(H: Float64Array, n: number): void {
+  const ort = new Float64Array(n);
+  for (let m = 1; m < n - 1; m++) {
+    let scale = 0;
+    for (let i = m; i < n; i++) scale += Math.abs(H[i * n + m - 1] as number);
+    if (scale === 0) continue;
+    let h = 0;
+    for (let i = n - 1; i >= m; i--) {
+      const v = (H[i * n + m - 1] as number) / scale;
+      ort[i] = v;
+      h += v * v;
+    }
+    let g = Math.sqrt(h);
+    if ((ort[m] as number) > 0) g = -g;
+    h -= (ort[m] as number) * g;
+    ort[m] = (ort[m] as number) - g;
+    for (let j = m; j < n; j++) {
+      let f = 0;
+      for (let i = n - 1; i >= m; i--) f += (ort[i] as number) * (H[i * n + j] as number);
+      f /= h;
+      for (let i = m; i < n; i++) H[i * n + j] = (H[i * n + j] as number) - f * (ort[i] as number);
+    }
+    for (let i = 0; i < n; i++) {
+      let f = 0;
+      for (let j = n - 1; j >= m; j--) f += (ort[j] as number) * (H[i * n + j] as number);
+      f /= h;
+      for (let j = m; j < n; j++) H[i * n + j] = (H[i * n + j] as number) - f * (ort[j] as number);
+    }
+    ort[m] = scale * (ort[m] as number);
+    H[m * n + m - 1] = scale * g;
+  }
+}
+
+const sign = (a: number, b: number): number => (b >= 0 ? Math.abs(a) : -Math.abs(a));
+
+/**
+ * Eigenvalues of an upper Hessenberg matrix by the shifted double-step (Francis) QR
+ * iteration, eigenvalues only (EISPACK hqr; Press et al., Numerical Recipes, sect. 11.6).
+ * Overwrites `a`; returns false if an eigenvalue needs more than 60 iterations.
+ */
+function hqr(a: Float64Array, n: number, wr: Float64Array, wi: Float64Array): boolean {
+  const at = (i: number, j: number): number => a[i * n + j] as number;
+  let anorm = 0;
+  for (let i = 0; i < n; i++) for (let j = Math.max(i - 1, 0); j < n; j++) anorm += Math.abs(at(i, j));
+  let nn = n - 1;
+  let t = 0;
+  let its = 0;
+  let p = 0;
+  let q = 0;
+  let r = 0;
+  let x = 0;
+  let y = 0;
+  let z = 0;
+  let w = 0;
+  let s = 0;
+  while (nn >= 0) {
+    let l = nn;
+    for (; l >= 1; l--) {
+      s = Math.abs(at(l - 1, l - 1)) + Math.abs(at(l, l));
+      if (s === 0) s = anorm;
+      if (Math.abs(at(l, l - 1)) + s === s) {
+        a[l * n + l - 1] = 0;
+        break;
+      }
+    }
+    x = at(nn, nn);
+    if (l === nn) {
+      wr[nn] = x + t;
+      wi[nn] = 0;
+      nn--;
+      its = 0;
+      continue;
+    }
+    y = at(nn - 1, nn - 1);
+    w = at(nn, nn - 1) * at(nn - 1, nn);
+    if (l === nn - 1) {
+      p = 0.5 * (y - x);
+      q = p * p + w;
+      z = Math.sqrt(Math.abs(q));
+      x += t;
+      if (q >= 0) {
+        z = p + sign(z, p);
+        wr[nn - 1] = x + z;
+        wr[nn] = z !== 0 ? x - w / z : x + z;
+        wi[nn - 1] = 0;
+        wi[nn] = 0;
+      } else {
+        wr[nn - 1] = x + p;
+        wr[nn] = x + p;
+        wi[nn - 1] = z;
+        wi[nn] = -z;
+      }
+      nn -= 2;
+      its = 0;
+      continue;
+    }
+    if (its >= 60) return false;
+    if (its === 10 || its === 20) {
+      // exceptional shift
+      t += x;
+      for (let i = 0; i <= nn; i++) a[i * n + i] = at(i, i) - x;
+      s = Math.abs(at(nn, nn - 1)) + Math.abs(at(nn - 1, nn - 2));
+      x = 0.75 * s;
+      y = x;
+      w = -0.4375 * s * s;
+    }
+    its++;
+    let m = nn - 2;
+    for (; m >= l; m--) {
+      z = at(m, m);
+      r = x - z;
+      s = y - z;
+      p = (r * s - w) / at(m + 1, m) + at(m, m + 1);
+      q = at(m + 1, m + 1) - z - r - s;
+      r = at(m + 2, m + 1);
+      s = Math.abs(p) + Math.abs(q) + Math.abs(r);
+      p /= s;
+      q /= s;
+      r /= s;
+      if (m === l) break;
+      const u = Math.abs(at(m, m - 1)) * (Math.abs(q) + Math.abs(r));
+      const v = Math.abs(p) * (Math.abs(at(m - 1, m - 1)) + Math.abs(z) + Math.abs(at(m + 1, m + 1)));
+      if (u + v === v) break;
+    }
+    for (let i = m + 2; i <= nn; i++) {
+      a[i * n + i - 2] = 0;
+      if (i !== m + 2) a[i * n + i - 3] = 0;
+    }
+    for (let k = m; k <= nn - 1; k++) {
+      if (k !== m) {
+        p = at(k, k - 1);
+        q = at(k + 1, k - 1);
+        r = k !== nn - 1 ? at(k + 2, k - 1) : 0;
+        x = Math.abs(p) + Math.abs(q) + Math.abs(r);
+        if (x !== 0) {
+          p /= x;
+          q /= x;
+          r /= x;
+        }
+      }
+      s = sign(Math.sqrt(p * p + q * q + r * r), p);
+      if (s !== 0) {
+        if (k === m) {
+          if (l !== m) a[k * n + k - 1] = -at(k, k - 1);
+        } else a[k * n + k - 1] = -s * x;
+        p += s;
+        x = p / s;
+        y = q / s;
+        z = r / s;
+        q /= p;
+        r /= p;
+        for (let j = k; j <= nn; j++) {
+          p = at(k, j) + q * at(k + 1, j);
+          if (k !== nn - 1) {
+            p += r * at(k + 2, j);
+            a[(k + 2) * n + j] = at(k + 2, j) - p * z;
+          }
+          a[(k + 1) * n + j] = at(k + 1, j) - p * y;
+          a[k * n + j] = at(k, j) - p * x;
+        }
+        const mmin = nn < k + 3 ? nn : k + 3;
+        for (let i = l; i <= mmin; i++) {
+          p = x * at(i, k) + y * at(i, k + 1);
+          if (k !== nn - 1) {
+            p += z * at(i, k + 2);
+            a[i * n + k + 2] = at(i, k + 2) - p * r;
+          }
+          a[i * n + k + 1] = at(i, k + 1) - p * q;
+          a[i * n + k] = at(i, k) - p;
+        }
+      }
+    }
+  }
+  return true;
+}
+
+/**
+ * Eigenvalues of a general real n x n matrix (row-major), as [re, im] pairs: Householder
+ * reduction to Hessenberg form, then the shifted double-step QR iteration on Float64Array
+ * (eigenvalues only). Should the iteration not converge, ml-matrix's
+ * EigenvalueDecomposition (JAMA / EISPACK hqr2) is used instead.
  */
 export function eigenvalues(M: Float64Array, n: number): Eigenvalue[] {
   if (n === 0) return [];
   if (n === 1) return [[M[0] ?? 0, 0]];
+  const H = M.slice(0, n * n);
+  hessenberg(H, n);
+  const wr = new Float64Array(n);
+  const wi = new Float64Array(n);
+  if (hqr(H, n, wr, wi)) {
+    const out: Eigenvalue[] = [];
+    for (let i = 0; i < n; i++) out.push([wr[i] as number, wi[i] as number]);
+    return out;
+  }
+  return eigenvaluesByMlMatrix(M, n);
+}
+
+/** Eigenvalues by ml-matrix's EigenvalueDecomposition (used as the fallback, and in tests). */
+export function eigenvaluesByMlMatrix(M: Float64Array, n: number): Eigenvalue[] {
   const rows: number[][] = [];
   for (let i = 0; i < n; i++) rows.push(Array.from(M.subarray(i * n, i * n + n)));
   const evd = new EigenvalueDecomposition(new Matrix(rows));

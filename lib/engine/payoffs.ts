@@ -15,7 +15,7 @@ import {
   isSymbolNode,
   parse,
   type MathNode,
-} from "mathjs";
+} from "mathjs/number";
 import type { CompiledGame, GameSpec, Parameters, PayoffEntry } from "./types";
 
 export const MAX_EXPRESSION_LENGTH = 500;

@@ -164,25 +164,68 @@ function supportOf(mask: number, n: number, offset = 0): number[] {
 /**
  * All rest points of the symmetric replicator dynamics for the n x n payoff matrix A
  * (row-major, A[i*n+j] = payoff to i against j), by enumeration of the 2^n - 1 supports.
- * Buffers are allocated once and reused; the budget's wall clock is checked as it goes.
+ *
+ * Supports are visited depth first (each extends its parent by a larger index), and the
+ * LU factors of the bordered matrix are extended by one row and column per step (bordering,
+ * Golub & Van Loan sect. 3.2), so a support costs O(s^2) instead of O(s^3). The bordering
+ * does not pivot; wherever it could mislead (a small pivot, large multipliers, or a share
+ * within 1e-6 of zero) the support is solved again from scratch with partial pivoting and,
+ * if singular, for its whole solution set. Buffers are allocated once.
  */
 export function symmetricRestPoints(A: Float64Array, n: number, budget?: Budget): RestPointSet {
   if (n > MAX_ENUMERATED_STRATEGIES) throw new RangeError(`support enumeration is limited to ${MAX_ENUMERATED_STRATEGIES} strategies`);
-  const tol = PIVOT_TOLERANCE * scaleOf(A);
-  const maxDim = n + 1;
-  const M = new Float64Array(maxDim * maxDim);
-  const b = new Float64Array(maxDim);
+  const scale = scaleOf(A);
+  const tol = PIVOT_TOLERANCE * scale;
+  const D = n + 1;
+  // Row k of the bordered matrix: k = 0 is strategy idx[0], k = 1 the sum row, k >= 2 strategy idx[k-1].
+  // Column c: c = 0 the common payoff v, c >= 1 the share of idx[c-1].
+  const L = new Float64Array(D * D);
+  const U = new Float64Array(D * D);
+  const y = new Float64Array(D);
+  const z = new Float64Array(D);
+  const M = new Float64Array(D * D);
+  const b = new Float64Array(D);
   const idx = new Int32Array(n);
   const points: RestPoint[] = [];
   const continua: number[][] = [];
   const undecided: number[][] = [];
-  const total = 2 ** n;
-  for (let mask = 1; mask < total; mask++) {
-    if ((mask & 0xfff) === 0) budget?.checkTime();
-    let s = 0;
-    for (let i = 0; i < n; i++) if ((mask >>> i) & 1) idx[s++] = i;
+  let visited = 0;
+
+  /** Extends the factors by row and column d (the new strategy is idx[d-1]); false if unreliable. */
+  const extend = (d: number): boolean => {
+    const j = idx[d - 1] as number;
+    const i0 = idx[0] as number;
+    for (let k = 0; k < d; k++) {
+      let v = k === 1 ? 1 : (A[(k === 0 ? i0 : (idx[k - 1] as number)) * n + j] as number);
+      const lk = k * D;
+      for (let m = 0; m < k; m++) v -= (L[lk + m] as number) * (U[m * D + d] as number);
+      U[lk + d] = v;
+    }
+    const ld = d * D;
+    let growth = 0;
+    for (let c = 0; c < d; c++) {
+      let v = c === 0 ? -1 : (A[j * n + (idx[c - 1] as number)] as number);
+      for (let m = 0; m < c; m++) v -= (L[ld + m] as number) * (U[m * D + c] as number);
+      const l = v / (U[c * D + c] as number);
+      L[ld + c] = l;
+      const al = l < 0 ? -l : l;
+      if (al > growth) growth = al;
+    }
+    let piv = A[j * n + j] as number;
+    let yd = 0;
+    for (let m = 0; m < d; m++) {
+      const l = L[ld + m] as number;
+      piv -= l * (U[m * D + d] as number);
+      yd -= l * (y[m] as number);
+    }
+    U[ld + d] = piv;
+    y[d] = yd;
+    return Math.abs(piv) > 1e-8 * scale && growth < 1e8;
+  };
+
+  /** Solves the current support (size s) from scratch, with pivoting and singular-face analysis. */
+  const fresh = (s: number): void => {
     const d = s + 1;
-    // Fill the bordered matrix.
     for (let a = 0; a < s; a++) {
       const ra = (idx[a] as number) * n;
       const row = a * d;
@@ -195,18 +238,11 @@ export function symmetricRestPoints(A: Float64Array, n: number, budget?: Budget)
     M[last + s] = 0;
     b[s] = 1;
     if (eliminate(M, b, d, tol)) {
-      let ok = true;
-      for (let a = 0; a < s; a++) {
-        if ((b[a] as number) <= SHARE_TOLERANCE) {
-          ok = false;
-          break;
-        }
-      }
-      if (!ok) continue;
+      for (let a = 0; a < s; a++) if ((b[a] as number) <= SHARE_TOLERANCE) return;
       const state = new Float64Array(n);
       for (let a = 0; a < s; a++) state[idx[a] as number] = b[a] as number;
       points.push({ state, support: Array.from(idx.subarray(0, s)) });
-      continue;
+      return;
     }
     const sup = Array.from(idx.subarray(0, s));
     const face = borderedFace(A, n, sup, sup, tol);
@@ -218,6 +254,58 @@ export function symmetricRestPoints(A: Float64Array, n: number, budget?: Budget)
       points.push({ state, support: sup });
     } else if (face.kind === "continuum") continua.push(sup);
     else if (face.kind === "undecided") undecided.push(sup);
+  };
+
+  /** Decides the current support of size s from the factors (dimension s + 1). */
+  const decide = (s: number, reliable: boolean): void => {
+    if (!reliable) {
+      fresh(s);
+      return;
+    }
+    const d = s + 1;
+    let minShare = Infinity;
+    for (let k = d - 1; k >= 0; k--) {
+      const lk = k * D;
+      let v = y[k] as number;
+      for (let c = k + 1; c < d; c++) v -= (U[lk + c] as number) * (z[c] as number);
+      v /= U[lk + k] as number;
+      z[k] = v;
+      if (k >= 1 && v < minShare) {
+        minShare = v;
+        if (v < -1e-6) return; // clearly outside the face
+      }
+    }
+    if (minShare <= 1e-6) {
+      if (minShare > -1e-6) fresh(s); // near the boundary: decide with pivoting
+      return;
+    }
+    const state = new Float64Array(n);
+    for (let c = 1; c < d; c++) state[idx[c - 1] as number] = z[c] as number;
+    points.push({ state, support: Array.from(idx.subarray(0, s)) });
+  };
+
+  const visit = (s: number, reliable: boolean): void => {
+    if ((++visited & 0xfff) === 0) budget?.checkTime();
+    decide(s, reliable);
+    for (let j = (idx[s - 1] as number) + 1; j < n; j++) {
+      idx[s] = j;
+      visit(s + 1, reliable && extend(s + 1));
+    }
+  };
+
+  for (let i = 0; i < n; i++) {
+    idx[0] = i;
+    // Support {i}: rows (strategy i, sum), columns (v, x_i): [[-1, a_ii], [0, 1]].
+    L.fill(0);
+    L[0] = 1;
+    L[D + 1] = 1;
+    U[0] = -1;
+    U[1] = A[i * n + i] as number;
+    U[D] = 0;
+    U[D + 1] = 1;
+    y[0] = 0;
+    y[1] = 1;
+    visit(1, true);
   }
   return { points: dedupe(points), continua, undecided };
 }

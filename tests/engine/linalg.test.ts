@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { eigs, lusolve } from "mathjs";
-import { eigenvalues, solveGeneral, solveInPlace, symmetricEigenvalues } from "@/lib/engine/linalg";
+import { eigenvalues, eigenvaluesByMlMatrix, solveGeneral, solveInPlace, symmetricEigenvalues } from "@/lib/engine/linalg";
 import { expectClose, seededRandom } from "../support/close";
 
 function randomMatrix(n: number, rnd: () => number): Float64Array {
@@ -121,6 +121,42 @@ describe("eigenvalues: ml-matrix's decomposition against mathjs eigs (a second, 
       ours.forEach((v, i) => expectClose(v, ref[i] ?? Number.NaN, 1e-9, 1e-10));
       for (let i = 1; i < n; i++) expect(ours[i] ?? 0).toBeGreaterThanOrEqual(ours[i - 1] ?? 0);
     }
+  });
+
+  it("our Hessenberg-QR agrees with ml-matrix's decomposition on random and structured matrices up to 24 x 24", () => {
+    const rnd = seededRandom(4);
+    const cases: [Float64Array, number][] = [];
+    for (let trial = 0; trial < 120; trial++) {
+      const n = 2 + (trial % 23);
+      cases.push([randomMatrix(n, rnd), n]);
+    }
+    const zero = new Float64Array(16);
+    const identity = Float64Array.from({ length: 16 }, (_, i) => (i % 5 === 0 ? 1 : 0));
+    const jordan = Float64Array.from([2, 1, 0, 0, 2, 1, 0, 0, 2]);
+    const triangular = Float64Array.from([1, 5, 7, 0, -2, 3, 0, 0, 4]);
+    const rotation = Float64Array.from([0, -1, 1, 0]);
+    cases.push([zero, 4], [identity, 4], [jordan, 3], [triangular, 3], [rotation, 2]);
+    for (const [M, n] of cases) {
+      const ours = eigenvalues(M, n);
+      const ref = eigenvaluesByMlMatrix(M, n);
+      const used = new Set<number>();
+      for (const [re, im] of ours) {
+        let best = -1;
+        let bestD = Infinity;
+        ref.forEach(([r2, i2], j) => {
+          if (used.has(j)) return;
+          const d = Math.hypot(re - r2, im - i2);
+          if (d < bestD) {
+            bestD = d;
+            best = j;
+          }
+        });
+        used.add(best);
+        // a Jordan block of size 3 turns rounding of 1e-16 into eigenvalue errors near 1e-5
+        expect(bestD).toBeLessThan(M === jordan ? 1e-4 : 1e-8);
+      }
+    }
+    expect(eigenvalues(rotation, 2)).toEqual([[0, 1], [0, -1]]);
   });
 
   it("handles 1 x 1 and empty matrices", () => {
