@@ -61,11 +61,11 @@ export function dynamicsView(dynamics: DynamicsSpec | undefined, game: GameSpec)
   if (two) {
     const [p1, p2] = game.populations;
     where.push(
-      `x is the state of ${p1.name} and y that of ${p2.name}; f_i = (A y)_i is the payoff to ${p1.name}'s strategy i against y, and g_j = (B x)_j that to ${p2.name}'s strategy j against x.`,
-      `The same law moves y, with g in place of f.`,
+      `x is the state of ${p1.name} and y that of ${p2.name}; fᵢ = (A y)ᵢ is the payoff to strategy i of ${p1.name} against y, and gⱼ = (B x)ⱼ the payoff to strategy j of ${p2.name} against x.`,
+      "The same law moves y, with g in place of f.",
     );
   } else {
-    where.push("x_i is the share of strategy i; f_i = (A x)_i is its payoff against the population, with A the payoff table below.");
+    where.push("xᵢ is the share of strategy i; fᵢ = (A x)ᵢ is its payoff against the population, with A the payoff table above.");
   }
   const phi: Formula = [s("φ"), t(" = "), t("Σ"), s("", "j"), t(" "), s("x", "j"), t(" "), s("f", "j")];
   const phiWhere = "φ is the population's mean payoff.";
@@ -82,7 +82,7 @@ export function dynamicsView(dynamics: DynamicsSpec | undefined, game: GameSpec)
         constants: [],
       };
     case "replicator-mutator":
-      where.push(phiWhere, "q_ji is the probability that an offspring of a j-strategist plays i.");
+      where.push(phiWhere, "qⱼᵢ is the probability that an offspring of a j-strategist plays i.");
       return {
         kind: d.kind,
         name: DYNAMICS_NAMES[d.kind] ?? d.kind,
@@ -105,7 +105,7 @@ export function dynamicsView(dynamics: DynamicsSpec | undefined, game: GameSpec)
         constants: [{ name: "noise", symbol: "η", value: d.noise }],
       };
     case "brown-von-neumann-nash":
-      where.push(phiWhere, "k_i is strategy i's excess payoff over the mean, where positive.");
+      where.push(phiWhere, "kᵢ is strategy i's excess payoff over the mean, where positive.");
       return {
         kind: d.kind,
         name: DYNAMICS_NAMES[d.kind] ?? d.kind,

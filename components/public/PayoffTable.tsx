@@ -18,6 +18,32 @@ function CellText({ cell }: { cell: PayoffCell }) {
   );
 }
 
+/** Both populations' payoffs on one line, with what the author wrote beneath when either is an expression. */
+function PairText({ a, b }: { a: PayoffCell; b: PayoffCell }) {
+  if (a.value === null || b.value === null) {
+    return (
+      <span className="flex gap-1">
+        <CellText cell={a} />
+        <span className="text-ink-faint">,</span>
+        <CellText cell={b} />
+      </span>
+    );
+  }
+  const written = a.expression !== null || b.expression !== null;
+  return (
+    <span>
+      <span className="font-mono tabular-nums whitespace-nowrap">
+        {formatNumber(a.value)}, {formatNumber(b.value)}
+      </span>
+      {written && (
+        <span className="block font-mono text-2xs text-ink-faint break-all">
+          {a.expression ?? formatNumber(a.value)}, {b.expression ?? formatNumber(b.value)}
+        </span>
+      )}
+    </span>
+  );
+}
+
 export function PayoffTable({ view }: { view: PayoffTableView }) {
   return (
     <div className="space-y-3">
@@ -56,15 +82,7 @@ export function PayoffTable({ view }: { view: PayoffTableView }) {
                   const cells = view.cells[i]?.[j] ?? [];
                   return (
                     <td key={j} className="px-3 py-2 align-top">
-                      {cells.length === 2 ? (
-                        <span className="flex gap-1">
-                          {cells[0] && <CellText cell={cells[0]} />}
-                          <span className="text-ink-faint">,</span>
-                          {cells[1] && <CellText cell={cells[1]} />}
-                        </span>
-                      ) : (
-                        cells[0] && <CellText cell={cells[0]} />
-                      )}
+                      {cells.length === 2 && cells[0] && cells[1] ? <PairText a={cells[0]} b={cells[1]} /> : cells[0] && <CellText cell={cells[0]} />}
                     </td>
                   );
                 })}

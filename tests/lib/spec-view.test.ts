@@ -117,7 +117,9 @@ describe("dynamicsView", () => {
 
   it("names both populations for a two-population game", () => {
     const v = dynamicsView({ kind: "replicator" }, bimatrix);
-    expect(v.where[0]).toContain("x is the state of Buyers and y that of Sellers");
+    expect(v.where[0]).toBe(
+      "x is the state of Buyers and y that of Sellers; fᵢ = (A y)ᵢ is the payoff to strategy i of Buyers against y, and gⱼ = (B x)ⱼ the payoff to strategy j of Sellers against x.",
+    );
   });
 });
 
