@@ -245,14 +245,15 @@ export async function listQueue(venueId: string, query: QueueQuery): Promise<Que
   // Ties broken by submission id so paging never repeats or skips a row.
   const order = sql`${SORT_SQL[query.sort]} ${dir} nulls last, submission_id ${dir}`;
   const offset = (query.page - 1) * query.pageSize;
-  const [rows, totals, statuses] = await Promise.all([
+  const [rows, counts] = await Promise.all([
     db.all<Raw>(sql`with q as (${base(venueId)}) select * from q where ${where} order by ${order} limit ${query.pageSize} offset ${offset}`),
-    db.all<Raw>(sql`with q as (${base(venueId)}) select count(*) as n from q where ${where}`),
-    db.all<Raw>(sql`with q as (${base(venueId)}) select status, count(*) as n from q group by status`),
+    // One pass for both: rows per status over the whole venue, and how many of them match.
+    db.all<Raw>(sql`with q as (${base(venueId)}) select status, count(*) as n, sum(case when ${where} then 1 else 0 end) as matched from q group by status`),
   ]);
-  const total = num(totals[0]?.n);
+  let total = 0;
   const statusCounts = Object.fromEntries(QUEUE_STATUSES.map((s) => [s, 0])) as Record<QueueStatus, number>;
-  for (const s of statuses) {
+  for (const s of counts) {
+    total += num(s.matched);
     const key = str(s.status) as QueueStatus;
     if (key in statusCounts) statusCounts[key] = num(s.n);
   }
