@@ -4,14 +4,15 @@ import { notFound } from "next/navigation";
 import { ModelForm } from "@/components/deposit/ModelForm";
 import { formValuesOf } from "@/components/deposit/model-form";
 import { SpecUpload } from "@/components/deposit/SpecUpload";
+import { SubmitVersionButton } from "@/components/deposit/SubmitVersionButton";
 import { modelKey } from "@/components/deposit/keys";
 import { VersionList } from "@/components/deposit/VersionList";
 import { Notice } from "@/components/ui/Notice";
 import { PageHeader, Section } from "@/components/ui/PageHeader";
 import { onPage, pageUser } from "@/lib/authz";
 import { getModel } from "@/lib/models";
-import { listVenues } from "@/lib/venues";
-import { updateModelAction } from "../actions";
+import { listSubmissionsForModel, listVenues } from "@/lib/venues";
+import { submitVersionAction, updateModelAction } from "../actions";
 
 interface Props {
   params: Promise<{ slug: string }>;
@@ -37,7 +38,9 @@ export default async function ModelEntryPage({ params, searchParams }: Props) {
   const created = (await searchParams).created === "1";
   const model = await ownModel(slug);
   const venues = await listVenues();
+  const submissions = await listSubmissionsForModel(model.id);
   const latest = model.versions[0];
+  const latestSubmitted = latest !== undefined && submissions.some((x) => x.versionId === latest.id);
   return (
     <div className="flex flex-col gap-10">
       <PageHeader
@@ -81,6 +84,34 @@ export default async function ModelEntryPage({ params, searchParams }: Props) {
 
       <Section id="versions" title="Versions" description="Newest first. The verification state updates by itself while a re-run is queued or running.">
         <VersionList initial={model} />
+      </Section>
+
+      <Section
+        id="submission"
+        title="Submission"
+        description={
+          model.venue === null
+            ? "Name a venue in the entry below to submit a version to its editors."
+            : `The editors of ${model.venue.name} decide on the newest version you submit.`
+        }
+      >
+        {submissions.length > 0 && (
+          <ul className="flex flex-col gap-1 text-sm" data-testid="submissions">
+            {submissions.map((x) => (
+              <li key={x.id}>
+                v{x.versionNumber} submitted to {x.venue.name} on{" "}
+                {new Date(x.createdAt).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" })} UTC
+              </li>
+            ))}
+          </ul>
+        )}
+        {model.venue !== null && latest !== undefined && !latestSubmitted && (
+          <SubmitVersionButton
+            label={`Submit v${latest.number} to ${model.venue.name}`}
+            submit={submitVersionAction.bind(null, model.slug, latest.number)}
+          />
+        )}
+        {model.venue !== null && latest === undefined && <p className="text-sm text-ink-soft">Upload a version first.</p>}
       </Section>
 
       <Section id="entry" title="The entry" description="Title, manuscript, authors, venue and visibility. Versions are not changed by this form.">
