@@ -4,6 +4,7 @@
  * downloads with the citation. Every user-supplied string is rendered as text.
  */
 import Link from "next/link";
+import { BadgeSnippets } from "@/components/badge/BadgeSnippets";
 import { ReportView } from "@/components/report";
 import { VerdictTag } from "@/components/status/VerdictTag";
 import { Notice } from "@/components/ui/Notice";
@@ -44,7 +45,8 @@ function safeHref(url: string | null): string | null {
   }
 }
 
-export function PublicVersionView({ data }: { data: PublicVersion }) {
+/** `modelPage`: shown at the model's own address (its newest version), which embeds the model badge. */
+export function PublicVersionView({ data, modelPage }: { data: PublicVersion; modelPage: boolean }) {
   const { model, version, readable, report } = data;
   const base = versionPath(model.slug, version.number);
   const citation = citationOf(data);
@@ -246,6 +248,13 @@ export function PublicVersionView({ data }: { data: PublicVersion }) {
               <pre className="mt-2 overflow-x-auto rounded-lg border border-line bg-sunken p-3 font-mono text-2xs">{toBibtex(citation)}</pre>
             </details>
             <p className="font-mono text-2xs break-all text-ink-faint">SHA-256 {version.specSha256}</p>
+          </section>
+
+          <section aria-labelledby="badge" className="flex min-w-0 flex-col gap-2 text-sm">
+            <h2 id="badge" className="text-base font-semibold">
+              Badge
+            </h2>
+            <BadgeSnippets slug={model.slug} number={modelPage ? undefined : version.number} isPublic revision={report?.verdict ?? "pending"} />
           </section>
         </aside>
       </div>

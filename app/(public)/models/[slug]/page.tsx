@@ -12,5 +12,5 @@ export async function generateMetadata({ params }: { params: Params }): Promise<
 /** A public model: its newest version. */
 export default async function PublicModelPage({ params }: { params: Params }) {
   const { slug } = await params;
-  return <PublicVersionView data={await publicVersion(slug)} />;
+  return <PublicVersionView modelPage={true} data={await publicVersion(slug)} />;
 }

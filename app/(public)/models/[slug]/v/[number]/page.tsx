@@ -12,5 +12,5 @@ export async function generateMetadata({ params }: { params: Params }): Promise<
 /** One version of a public model, by number. */
 export default async function PublicVersionPage({ params }: { params: Params }) {
   const { slug, number } = await params;
-  return <PublicVersionView data={await publicVersion(slug, number)} />;
+  return <PublicVersionView modelPage={false} data={await publicVersion(slug, number)} />;
 }
