@@ -183,6 +183,15 @@ describe("ESS: non-regular cases (an alternative best reply outside the support)
   });
 });
 
+describe("ESS: limits", () => {
+  it("more than 16 alternative best replies leave the test undecided, saying why", () => {
+    const n = 18;
+    const r = essSymmetric(new Float64Array(n * n), n, Float64Array.from({ length: n }, (_, i) => (i === 0 ? 1 : 0)));
+    expect(r.ess).toBeNull();
+    expect(r.reason).toBe("17 strategies outside the support are alternative best replies; the engine decides at most 16.");
+  });
+});
+
 describe("ESS: random games against the definition", () => {
   it("agrees with sampling at every Nash rest point of 60 random games", () => {
     const rnd = seededRandom(31);

@@ -170,6 +170,13 @@ describe("validateSpec: semantic rules", () => {
     expect(e.message).toMatch(/is not a number \(NaN\) at the parameter values C = 3, V = 2 with the parameters of claim "mixed"\./);
   });
 
+  it("refuses payoffs that are infinite only under an experiment's parameters, naming the experiment", () => {
+    const spec = set(set(base(), "/game/payoffs/1/0", "1 / (C - 4)"), "/experiments/0/parameters", { C: 4 });
+    const e = only(validateSpec(spec));
+    expect(e.path).toBe("/game/payoffs/1/0");
+    expect(e.message).toMatch(/is infinite at the parameter values C = 4, V = 2 with the parameters of experiment "run"\./);
+  });
+
   it("checks ORCID check digits by ISO 7064 MOD 11-2", () => {
     // ORCID's own documented example iDs (orcid.org support pages): 0000-0002-1825-0097 and 0000-0001-5109-3700; X as check digit: 0000-0002-1694-233X
     expect(orcidChecksumValid("0000-0002-1825-0097")).toBe(true);

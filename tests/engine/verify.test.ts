@@ -285,6 +285,18 @@ describe("claims: decisions and the verdict", () => {
     expect(r.notes?.[0]).toMatch(/too large for a complete enumeration of rest points \(more than 20 strategies\)/);
   });
 
+  it("games above 20 strategies: a state on a continuum is inconclusive", () => {
+    const n = 21;
+    // strategies s0 and s1 are identical, so the whole edge between them is at rest
+    const group = (i: number): number => Math.max(0, i - 1);
+    const payoffs = Array.from({ length: n }, (_, i) => Array.from({ length: n }, (_, j) => (group(i) === group(j) ? 1 : 0)));
+    const r = verifySpec(spec({ kind: "symmetric", strategies: payoffs.map((_, i) => `s${i}`), payoffs }, [
+      { id: "edge", kind: "rest-point", state: [0.5, 0.5, ...new Array(n - 2).fill(0)] },
+    ]));
+    expect(claim(r, "edge").status).toBe("inconclusive");
+    expect(claim(r, "edge").message).toBe("The state lies near a face (support s0, s1) whose rest points form a continuum or could not be resolved.");
+  });
+
   it("other dynamics: rest points by Newton from the claimed state (logit dynamics of hawk-dove)", () => {
     const r = verifySpec(spec(hawkDove, [{ id: "logit-mixed", kind: "rest-point", state: [0.65, 0.35], tolerance: 0.05, stability: "asymptotically-stable" }], {
       parameters: { V: 2, C: 3 },
