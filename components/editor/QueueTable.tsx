@@ -270,7 +270,7 @@ export function QueueTable({ venueSlug, initial }: { venueSlug: string; initial:
 
       <div className="relative overflow-x-auto rounded-[var(--radius-card)] border border-line bg-surface">
         <table className="w-full min-w-[48rem] border-collapse text-sm" data-testid="queue-table">
-          <caption className="sr-only">Submissions, one row per model at its newest submitted version</caption>
+          <caption className="sr-only">Submissions, one row per model at its newest submitted version; open a title to review it</caption>
           <thead className="border-b border-line bg-sunken/60 text-xs">
             <tr>
               <SortHeader label="Model" sortKey="title" c={c} onSort={onSort} />
@@ -280,9 +280,6 @@ export function QueueTable({ venueSlug, initial }: { venueSlug: string; initial:
               <SortHeader label="Claims ✓✗?" sortKey="contradicted" c={c} onSort={onSort} />
               <SortHeader label="Status" sortKey="status" c={c} onSort={onSort} />
               <SortHeader label="Submitted" sortKey="submitted" c={c} onSort={onSort} />
-              <th scope="col" className="px-3 py-2 text-left font-semibold text-ink-soft">
-                <span className="sr-only">Open</span>
-              </th>
             </tr>
           </thead>
           <tbody>
@@ -291,9 +288,10 @@ export function QueueTable({ venueSlug, initial }: { venueSlug: string; initial:
               return (
                 <tr key={r.submissionId} className="border-b border-line last:border-b-0 hover:bg-sunken/40" data-testid="queue-row" data-model={r.model.slug}>
                   <td className="min-w-[12rem] max-w-[20rem] px-3 py-2.5">
-                    <Link href={href} className="font-semibold text-ink hover:text-tide hover:underline">
+                    <Link href={href} className="rp-link font-semibold" data-testid="queue-review-link">
                       {r.model.title}
                     </Link>
+                    <span className="sr-only">, review version {r.version.number}</span>
                     <div className="font-mono text-2xs text-ink-faint">
                       {r.model.slug}
                       {r.model.visibility === "public" ? " · public" : " · private"}
@@ -321,17 +319,12 @@ export function QueueTable({ venueSlug, initial }: { venueSlug: string; initial:
                       {formatDay(r.submittedAt)}
                     </time>
                   </td>
-                  <td className="px-3 py-2.5 text-right">
-                    <Link href={href} className={buttonClass("secondary", "px-3 py-1 text-xs")} aria-label={`Review ${r.model.title}, version ${r.version.number}`}>
-                      Review
-                    </Link>
-                  </td>
                 </tr>
               );
             })}
             {page !== null && page.rows.length === 0 ? (
               <tr>
-                <td colSpan={8} className="px-4 py-8 text-center text-ink-soft">
+                <td colSpan={7} className="px-4 py-8 text-center text-ink-soft">
                   {filtered ? "No submission matches these filters." : "Nothing has been submitted to this venue yet."}
                 </td>
               </tr>

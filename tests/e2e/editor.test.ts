@@ -115,7 +115,7 @@ describe("an editor reviews, requests changes, then verifies", () => {
     await shoot(page, "queue-filtered");
 
     // The review of v2: report, findings, decision form.
-    await row.getByRole("link", { name: /^Review / }).click();
+    await row.getByTestId("queue-review-link").click();
     await page.waitForURL(`**/review/${slug}/v/2`);
     await page.getByTestId("report-view").waitFor();
     expect(await page.getByTestId("report-view").getAttribute("data-verdict")).toBe("contradicted");
@@ -169,7 +169,7 @@ describe("an editor reviews, requests changes, then verifies", () => {
     expect(await upload(V3)).toBe(3);
     await page.goto(`/workspace/venues/${DEMO_VENUE.slug}?q=${encodeURIComponent(slug)}`);
     await expect.poll(async () => (await page.getByTestId("queue-row").first().textContent()) ?? "", { timeout: 10_000 }).toContain("v3");
-    await page.getByTestId("queue-row").first().getByRole("link", { name: /^Review / }).click();
+    await page.getByTestId("queue-row").first().getByTestId("queue-review-link").click();
     await page.waitForURL(`**/review/${slug}/v/3`);
     expect(await page.getByTestId("report-view").getAttribute("data-verdict")).toBe("confirmed");
     await page.getByRole("radio", { name: /Verified/ }).check();
