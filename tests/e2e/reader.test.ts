@@ -135,10 +135,15 @@ describe("screenshots of the public pages", () => {
         await page.setViewportSize({ width, height: 860 });
         await page.goto("/models?q=a");
         await screenshot(page, `reader-registry-${label}-${scheme}`);
-        await page.goto(`/models/${meadow}`);
-        await screenshot(page, `reader-model-${label}-${scheme}`);
-        await page.goto(`/models/${market}`);
-        await screenshot(page, `reader-market-${label}-${scheme}`);
+        for (const [name, slug] of [
+          ["model", meadow],
+          ["market", market],
+        ] as const) {
+          await page.goto(`/models/${slug}`);
+          // The stored run's figures are drawn in the browser: wait for them.
+          await page.getByTestId("registered-figures").waitFor();
+          await screenshot(page, `reader-${name}-${label}-${scheme}`);
+        }
         // Nothing may stick out sideways on a phone.
         const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
         expect(overflow).toBeLessThanOrEqual(1);
