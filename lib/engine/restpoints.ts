@@ -123,35 +123,51 @@ export function singularFace(M: Float64Array, b: Float64Array, rows: number, col
   return { kind: "undecided" };
 }
 
-/** Bordered system for shares on `rowsIdx` equalised by matrix P (rows = own, cols = other). */
-function borderedFace(
-  P: Float64Array,
-  pCols: number,
-  rowsIdx: number[],
-  colsIdx: number[],
-  tol: number,
-): Face {
+/** Scratch buffers for square solves of faces (at most 25 x 25). */
+const SCRATCH_M = new Float64Array(26 * 26);
+const SCRATCH_B = new Float64Array(26);
+
+/**
+ * Face system for shares on `colsIdx` that make the payoffs (rows `rowsIdx` of P, whose row
+ * stride is pCols) equal: [P_RC -1; 1^T 0][x; v] = [0; 1]. With more equations than
+ * unknowns (generically inconsistent) a square subsystem is solved first and the remaining
+ * equations are checked against its unique solution, which settles most such faces without
+ * the general rank-revealing solve.
+ */
+function borderedFace(P: Float64Array, pCols: number, rowsIdx: number[], colsIdx: number[], tol: number): Face {
   const r = rowsIdx.length + 1;
   const c = colsIdx.length + 1;
-  const M = new Float64Array(r * c);
-  const b = new Float64Array(r);
-  rowsIdx.forEach((ri, a) => {
-    colsIdx.forEach((cj, bb) => {
-      M[a * c + bb] = P[ri * pCols + cj] as number;
-    });
-    M[a * c + c - 1] = -1;
-  });
-  for (let bb = 0; bb < c - 1; bb++) M[(r - 1) * c + bb] = 1;
-  b[r - 1] = 1;
-  if (r === c) {
-    const M2 = M.slice();
-    const b2 = b.slice();
-    if (solveInPlace(M2, b2, r, tol)) {
-      const x = b2.slice(0, c - 1);
+  const entry = (a: number, bb: number): number => {
+    if (a === r - 1) return bb === c - 1 ? 0 : 1;
+    if (bb === c - 1) return -1;
+    return P[(rowsIdx[a] as number) * pCols + (colsIdx[bb] as number)] as number;
+  };
+  if (r >= c) {
+    // Square subsystem: the first c - 1 equality rows and the sum row.
+    const M2 = SCRATCH_M;
+    const b2 = SCRATCH_B;
+    for (let a = 0; a < c; a++) {
+      const src = a === c - 1 ? r - 1 : a;
+      for (let bb = 0; bb < c; bb++) M2[a * c + bb] = entry(src, bb);
+      b2[a] = src === r - 1 ? 1 : 0;
+    }
+    if (solveInPlace(M2, b2, c, tol)) {
+      const x = b2.slice(0, c);
+      let scale = 1;
+      for (let i = 0; i < c; i++) scale = Math.max(scale, Math.abs(x[i] as number));
+      for (let a = c - 1; a < r - 1; a++) {
+        let res = 0;
+        for (let bb = 0; bb < c; bb++) res += entry(a, bb) * (x[bb] as number);
+        if (Math.abs(res) > 1e-9 * scale * (tol / PIVOT_TOLERANCE)) return { kind: "none" }; // tol / PIVOT_TOLERANCE is the payoff scale
+      }
       for (let i = 0; i < c - 1; i++) if ((x[i] as number) <= SHARE_TOLERANCE) return { kind: "none" };
-      return { kind: "point", x, last: b2[c - 1] as number };
+      return { kind: "point", x: x.slice(0, c - 1), last: x[c - 1] as number };
     }
   }
+  const M = new Float64Array(r * c);
+  const b = new Float64Array(r);
+  for (let a = 0; a < r; a++) for (let bb = 0; bb < c; bb++) M[a * c + bb] = entry(a, bb);
+  b[r - 1] = 1;
   return singularFace(M, b, r, c, c - 1, tol);
 }
 
@@ -396,11 +412,20 @@ export function bimatrixRestPoints(A: Float64Array, B: Float64Array, m: number, 
     for (let m2 = 1; m2 < 2 ** k; m2++) {
       if ((++count & 0xfff) === 0) budget?.checkTime();
       const S2 = supportOf(m2, k);
-      // Shares x on S1 are fixed by population 2's indifference on S2 (rows of B), and vice versa.
-      const fx = borderedFace(B, m, S2, S1, tol);
-      if (fx.kind === "none") continue;
-      const fy = borderedFace(A, k, S1, S2, tol);
-      if (fy.kind === "none") continue;
+      // Shares x on S1 are fixed by population 2's indifference on S2 (rows of B), and vice
+      // versa. The system with more equations than unknowns is tried first: it rarely has a solution.
+      let fx: Face;
+      let fy: Face;
+      if (S2.length >= S1.length) {
+        fx = borderedFace(B, m, S2, S1, tol);
+        if (fx.kind === "none") continue;
+        fy = borderedFace(A, k, S1, S2, tol);
+      } else {
+        fy = borderedFace(A, k, S1, S2, tol);
+        if (fy.kind === "none") continue;
+        fx = borderedFace(B, m, S2, S1, tol);
+      }
+      if (fx.kind === "none" || fy.kind === "none") continue;
       const flat = [...S1, ...S2.map((j) => j + m)];
       if (fx.kind === "point" && fy.kind === "point") {
         const state = new Float64Array(m + k);

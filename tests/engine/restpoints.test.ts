@@ -140,6 +140,46 @@ describe("two-population support enumeration", () => {
     expectAllClose(interior?.state ?? [], [2 / 3, 1 / 3, 1 / 2, 1 / 2], 1e-14, 1e-15);
   });
 
+  it("agrees with an independent solve by mathjs lusolve on random games (generic: equal support sizes only)", () => {
+    const rnd = seededRandom(41);
+    const subsets = (n: number): number[][] => Array.from({ length: 2 ** n - 1 }, (_, mask) => Array.from({ length: n }, (_, i) => i).filter((i) => ((mask + 1) >> i) & 1));
+    const solve = (P: Float64Array, pCols: number, rowsIdx: number[], colsIdx: number[]): number[] | null => {
+      const M = rowsIdx.map((i) => [...colsIdx.map((j) => P[i * pCols + j] ?? 0), -1]);
+      M.push([...colsIdx.map(() => 1), 0]);
+      const z = (lusolve(M, [...rowsIdx.map(() => 0), 1]) as number[][]).map((r) => r[0] ?? Number.NaN);
+      return z.slice(0, colsIdx.length).every((v) => v > 1e-12) ? z.slice(0, colsIdx.length) : null;
+    };
+    for (let trial = 0; trial < 12; trial++) {
+      const m = 2 + (trial % 3);
+      const k = 2 + ((trial + 1) % 3);
+      const A = Float64Array.from({ length: m * k }, () => rnd());
+      const B = Float64Array.from({ length: k * m }, () => rnd());
+      const ref: number[][] = [];
+      for (const S1 of subsets(m)) {
+        for (const S2 of subsets(k)) {
+          if (S1.length !== S2.length) continue;
+          const x = solve(B, m, S2, S1);
+          const y = solve(A, k, S1, S2);
+          if (x === null || y === null) continue;
+          const state = new Array<number>(m + k).fill(0);
+          S1.forEach((i, a) => {
+            state[i] = x[a] ?? 0;
+          });
+          S2.forEach((j, a) => {
+            state[m + j] = y[a] ?? 0;
+          });
+          ref.push(state);
+        }
+      }
+      const ours = bimatrixRestPoints(A, B, m, k);
+      expect(ours.continua).toEqual([]);
+      const a = sorted(ours.points);
+      const b = sorted(ref.map((x) => ({ state: Float64Array.from(x) })));
+      expect(a.length).toBe(b.length);
+      a.forEach((x, i) => expectAllClose(x, b[i] ?? [], 1e-9, 1e-11));
+    }
+  });
+
   it("reports a continuum when a population's payoffs do not depend on its own choice", () => {
     // population 2 is indifferent everywhere (B constant), population 1 strictly prefers strategy 0
     const set = bimatrixRestPoints(Float64Array.from([1, 1, 0, 0]), Float64Array.from([0, 0, 0, 0]), 2, 2);
