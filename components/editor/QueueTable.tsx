@@ -61,7 +61,7 @@ type Loaded = { kind: "page"; data: QueuePage } | { kind: "error"; message: stri
 function SortHeader({ label, sortKey, c, onSort }: { label: string; sortKey: QueueSort; c: QueueControls; onSort: (s: QueueSort) => void }) {
   const active = c.sort === sortKey;
   return (
-    <th scope="col" aria-sort={active ? (c.dir === "asc" ? "ascending" : "descending") : "none"} className="px-3 py-2 text-left font-semibold whitespace-nowrap">
+    <th scope="col" aria-sort={active ? (c.dir === "asc" ? "ascending" : "descending") : "none"} className="px-2.5 py-2 text-left font-semibold whitespace-nowrap">
       <button type="button" onClick={() => onSort(sortKey)} className={`inline-flex items-center gap-1 hover:text-tide ${active ? "text-ink" : "text-ink-soft"}`}>
         {label}
         <span aria-hidden="true" className="font-mono text-2xs">
@@ -287,7 +287,7 @@ export function QueueTable({ venueSlug, initial }: { venueSlug: string; initial:
               const href = `/workspace/venues/${encodeURIComponent(venueSlug)}/review/${encodeURIComponent(r.model.slug)}/v/${r.version.number}`;
               return (
                 <tr key={r.submissionId} className="border-b border-line last:border-b-0 hover:bg-sunken/40" data-testid="queue-row" data-model={r.model.slug}>
-                  <td className="min-w-[12rem] max-w-[20rem] px-3 py-2.5">
+                  <td className="min-w-[11rem] max-w-[20rem] px-2.5 py-2.5">
                     <Link href={href} className="rp-link font-semibold" data-testid="queue-review-link">
                       {r.model.title}
                     </Link>
@@ -297,24 +297,24 @@ export function QueueTable({ venueSlug, initial }: { venueSlug: string; initial:
                       {r.model.visibility === "public" ? " · public" : " · private"}
                     </div>
                   </td>
-                  <td className="max-w-[11rem] px-3 py-2.5">
+                  <td className="max-w-[10rem] px-2.5 py-2.5">
                     <div className="truncate">{r.author.name}</div>
                     <div className="truncate text-2xs text-ink-faint" title={r.author.email}>
                       {r.author.email}
                     </div>
                   </td>
-                  <td className="px-3 py-2.5 font-mono text-xs whitespace-nowrap">
+                  <td className="px-2.5 py-2.5 font-mono text-xs whitespace-nowrap">
                     v{r.version.number}
                     {r.submittedVersions > 1 ? <div className="text-2xs text-ink-faint">{r.submittedVersions} sent</div> : null}
                   </td>
-                  <td className="px-3 py-2.5">{r.verdict === null ? <span className="text-xs text-ink-faint">not yet</span> : <VerdictTag verdict={r.verdict} size="sm" />}</td>
-                  <td className="px-3 py-2.5">
+                  <td className="px-2.5 py-2.5">{r.verdict === null ? <span className="text-xs text-ink-faint">not yet</span> : <VerdictTag verdict={r.verdict} size="sm" />}</td>
+                  <td className="px-2.5 py-2.5">
                     <Counts counts={r.counts} />
                   </td>
-                  <td className="px-3 py-2.5">
+                  <td className="px-2.5 py-2.5">
                     <StatusPill status={r.status} />
                   </td>
-                  <td className="px-3 py-2.5 text-xs text-ink-soft">
+                  <td className="px-2.5 py-2.5 text-xs whitespace-nowrap text-ink-soft">
                     <time dateTime={r.submittedAt} title={formatWhen(r.submittedAt)}>
                       {formatDay(r.submittedAt)}
                     </time>

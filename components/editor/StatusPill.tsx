@@ -1,4 +1,4 @@
-/** The editorial state of a submission: a notched tag with an icon and the word (never colour alone). */
+/** The editorial state of a submission: a tag with a heavy left edge, an icon and the word (never colour alone). */
 import type { QueueStatus } from "@/lib/queue";
 import { CheckIcon, ClockIcon, CrossIcon, InfoIcon, QuestionIcon } from "@/components/status/icons";
 import { STATUS_MEANING, STATUS_WORDS } from "./labels";
@@ -16,8 +16,7 @@ export function StatusPill({ status }: { status: QueueStatus }) {
   const l = LOOK[status];
   return (
     <span
-      className={`inline-flex items-center gap-1.5 border px-2 py-0.5 text-xs font-semibold whitespace-nowrap ${l.className}`}
-      style={{ clipPath: "polygon(6px 0, 100% 0, 100% 100%, 6px 100%, 0 50%)", paddingLeft: "0.7rem" }}
+      className={`inline-flex items-center gap-1.5 rounded-sm border border-l-4 px-2 py-0.5 text-xs font-semibold whitespace-nowrap ${l.className}`}
       title={STATUS_MEANING[status]}
       data-status={status}
     >
