@@ -250,12 +250,9 @@ export function PublicVersionView({ data, modelPage }: { data: PublicVersion; mo
             <p className="font-mono text-2xs break-all text-ink-faint">SHA-256 {version.specSha256}</p>
           </section>
 
-          <section aria-labelledby="badge" className="flex min-w-0 flex-col gap-2 text-sm">
-            <h2 id="badge" className="text-base font-semibold">
-              Badge
-            </h2>
+          <div className="min-w-0 text-sm">
             <BadgeSnippets slug={model.slug} number={modelPage ? undefined : version.number} isPublic revision={report?.verdict ?? "pending"} />
-          </section>
+          </div>
         </aside>
       </div>
     </article>

@@ -23,7 +23,30 @@ interface Fields {
   experiments: ExperimentFields[];
 }
 
-type Phase = { kind: "idle" } | { kind: "checking" } | { kind: "running" } | { kind: "done"; report: Report } | { kind: "failed"; message: string };
+type Phase =
+  | { kind: "idle" }
+  | { kind: "checking" }
+  | { kind: "running" }
+  | { kind: "done"; report: Report; changes: string[] }
+  | { kind: "failed"; message: string };
+
+const shares = (s: State) => (isPairState(s) ? s.map((p) => `(${p.join(", ")})`).join(" and ") : `(${s.join(", ")})`);
+
+/** What the reader changed, in words, so the results say which values they belong to. */
+function changesOf(original: ModelSpec, mine: ModelSpec): string[] {
+  const out: string[] = [];
+  for (const [k, v] of Object.entries(mine.parameters ?? {})) {
+    const was = original.parameters?.[k];
+    if (was !== v) out.push(`${k} = ${v} (registered: ${was})`);
+  }
+  (mine.experiments ?? []).forEach((e, i) => {
+    const o = original.experiments?.[i];
+    if (o === undefined) return;
+    if (o.duration !== e.duration) out.push(`run “${e.id}” lasts ${e.duration} (registered: ${o.duration})`);
+    if (JSON.stringify(o.initial) !== JSON.stringify(e.initial)) out.push(`run “${e.id}” starts at ${shares(e.initial)} (registered: ${shares(o.initial)})`);
+  });
+  return out;
+}
 
 /** RFC 6901 token escape, as the engine writes pointers. */
 const token = (s: string | number) => String(s).replace(/~/g, "~0").replace(/\//g, "~1");
@@ -151,7 +174,7 @@ export function TryYourOwnValues({ specText }: { specText: string }) {
       });
       const body = (await res.json().catch(() => null)) as { report?: Report; error?: { message: string; details?: SpecError[] } } | null;
       if (res.ok && body?.report !== undefined) {
-        setPhase({ kind: "done", report: body.report });
+        setPhase({ kind: "done", report: body.report, changes: changesOf(original, c.spec) });
         requestAnimationFrame(() => resultRef.current?.focus());
         return;
       }
@@ -333,6 +356,9 @@ export function TryYourOwnValues({ specText }: { specText: string }) {
             <p className="text-sm">
               Computed just now from the values you entered. These are <strong>not</strong> the registered results of this version, and
               they are not stored.
+            </p>
+            <p className="text-sm text-ink-soft" data-testid="own-changes">
+              {phase.changes.length === 0 ? "You kept the registered values." : `Your values: ${phase.changes.join("; ")}.`}
             </p>
             {summary(phase.report.claims) !== "" && <p className="text-sm text-ink-soft">{summary(phase.report.claims)}</p>}
           </div>

@@ -68,6 +68,7 @@ describe("a reader without an account", () => {
     const own = page.getByTestId("own-results");
     await own.waitFor({ timeout: 30_000 });
     expect(await own.innerText()).toContain("These are not the registered results of this version");
+    expect(await page.getByTestId("own-changes").innerText()).toBe("Your values: C = 8 (registered: 3).");
     const mine = await seriesPoints(page, "[data-testid=own-results]");
     expect(mine.length).toBeGreaterThan(100);
     expect(mine).not.toBe(registered);
