@@ -111,6 +111,8 @@ export interface QueueRow {
   decision: { outcome: DecisionOutcome; at: string; editorName: string | null } | null;
   /** Submitted versions of this model at this venue (so "v3 of 3 submitted"). */
   submittedVersions: number;
+  /** The decision on the newest earlier version at this venue (a resubmission answers it). */
+  previousDecision: { outcome: DecisionOutcome; number: number } | null;
 }
 
 export interface QueuePage {
@@ -151,7 +153,7 @@ function base(venueId: string): SQL {
       r.inconclusive_count as inconclusive_count,
       d.outcome as outcome, d.created_at as decided_at, e.name as editor_name,
       j.state as job_state,
-      (select count(*) from submission s3 where s3.venue_id = s.venue_id and s3.model_id = s.model_id) as submitted_versions,
+      s.venue_id as venue_id,
       case
         when d.id is not null then d.outcome
         when r.id is not null then 'awaiting-decision'
@@ -211,6 +213,14 @@ const str = (v: unknown): string => (typeof v === "string" ? v : String(v ?? "")
 const num = (v: unknown): number => (typeof v === "number" ? v : typeof v === "bigint" ? Number(v) : Number(v ?? 0));
 const iso = (v: unknown): string => new Date(num(v)).toISOString();
 
+/** "changes-requested 2" -> { outcome, number }. */
+function previous(v: unknown): QueueRow["previousDecision"] {
+  if (typeof v !== "string") return null;
+  const m = /^(\S+) (\d+)$/.exec(v);
+  if (m === null || m[1] === undefined || m[2] === undefined || !(DECISION_OUTCOMES as readonly string[]).includes(m[1])) return null;
+  return { outcome: m[1] as DecisionOutcome, number: Number(m[2]) };
+}
+
 function toRow(r: Raw): QueueRow {
   const verdict = r.verdict === null || r.verdict === undefined ? null : (str(r.verdict) as Verdict);
   return {
@@ -235,6 +245,7 @@ function toRow(r: Raw): QueueRow {
             editorName: r.editor_name === null || r.editor_name === undefined ? null : str(r.editor_name),
           },
     submittedVersions: num(r.submitted_versions),
+    previousDecision: previous(r.previous_decision),
   };
 }
 
@@ -246,7 +257,15 @@ export async function listQueue(venueId: string, query: QueueQuery): Promise<Que
   const order = sql`${SORT_SQL[query.sort]} ${dir} nulls last, submission_id ${dir}`;
   const offset = (query.page - 1) * query.pageSize;
   const [rows, counts] = await Promise.all([
-    db.all<Raw>(sql`with q as (${base(venueId)}) select * from q where ${where} order by ${order} limit ${query.pageSize} offset ${offset}`),
+    // Columns only the page shows are computed for the page's rows, after sorting and limiting.
+    db.all<Raw>(sql`with q as (${base(venueId)})
+      select p.*,
+        (select count(*) from submission s3 where s3.venue_id = p.venue_id and s3.model_id = p.model_id) as submitted_versions,
+        (select d4.outcome || ' ' || v4.number from decision d4 join version v4 on v4.id = d4.version_id
+          where d4.venue_id = p.venue_id and d4.model_id = p.model_id and v4.number < p.version_number
+          order by v4.number desc limit 1) as previous_decision
+      from (select * from q where ${where} order by ${order} limit ${query.pageSize} offset ${offset}) p
+      order by ${order}`),
     // One pass for both: rows per status over the whole venue, and how many of them match.
     db.all<Raw>(sql`with q as (${base(venueId)}) select status, count(*) as n, sum(case when ${where} then 1 else 0 end) as matched from q group by status`),
   ]);

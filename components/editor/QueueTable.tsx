@@ -9,7 +9,7 @@ import { useCallback, useEffect, useId, useRef, useState } from "react";
 import { VerdictTag } from "@/components/status/VerdictTag";
 import { Button, buttonClass } from "@/components/ui/Button";
 import type { QueuePage, QueueSort, QueueStatus, QueueVerdict } from "@/lib/queue";
-import { QUEUE_STATUS_ORDER, SORT_WORDS, STATUS_WORDS, formatDay, formatWhen } from "./labels";
+import { OUTCOME_WORDS, QUEUE_STATUS_ORDER, SORT_WORDS, STATUS_WORDS, formatDay, formatWhen } from "./labels";
 import { StatusPill } from "./StatusPill";
 
 export interface QueueControls {
@@ -305,7 +305,13 @@ export function QueueTable({ venueSlug, initial }: { venueSlug: string; initial:
                   </td>
                   <td className="px-2.5 py-2.5 font-mono text-xs whitespace-nowrap">
                     v{r.version.number}
-                    {r.submittedVersions > 1 ? <div className="text-2xs text-ink-faint">{r.submittedVersions} sent</div> : null}
+                    {r.previousDecision !== null ? (
+                      <div className="font-sans text-2xs text-ink-faint" title={`Version ${r.previousDecision.number}: ${OUTCOME_WORDS[r.previousDecision.outcome]}`}>
+                        after v{r.previousDecision.number}: {OUTCOME_WORDS[r.previousDecision.outcome].toLowerCase()}
+                      </div>
+                    ) : r.submittedVersions > 1 ? (
+                      <div className="text-2xs text-ink-faint">{r.submittedVersions} sent</div>
+                    ) : null}
                   </td>
                   <td className="px-2.5 py-2.5">{r.verdict === null ? <span className="text-xs text-ink-faint">not yet</span> : <VerdictTag verdict={r.verdict} size="sm" />}</td>
                   <td className="px-2.5 py-2.5">

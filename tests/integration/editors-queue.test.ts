@@ -80,10 +80,12 @@ describe("listQueue", () => {
     expect(crab?.verdict).toBe("inconclusive");
     expect(crab?.counts).toEqual({ confirmed: 1, contradicted: 0, inconclusive: 2 });
     expect(crab?.author.name).toBe("Bram Visser");
+    expect(crab?.previousDecision).toEqual({ outcome: "changes-requested", number: 1 });
     expect(page.rows.map((r) => r.status)).toEqual(["awaiting-decision", "check-failed", "declined", "awaiting-decision", "awaiting-check"]);
     const plover = page.rows[2];
     expect(plover?.decision?.outcome).toBe("declined");
     expect(plover?.decision?.editorName).toBe("Cleo");
+    expect(plover?.previousDecision).toBeNull();
     expect(page.rows[1]?.jobState).toBe("failed");
     expect(page.rows[4]?.verdict).toBeNull();
     expect(page.rows[4]?.counts).toBeNull();
