@@ -184,9 +184,10 @@ function supportOf(mask: number, n: number, offset = 0): number[] {
  * Supports are visited depth first (each extends its parent by a larger index), and the
  * LU factors of the bordered matrix are extended by one row and column per step (bordering,
  * Golub & Van Loan sect. 3.2), so a support costs O(s^2) instead of O(s^3). The bordering
- * does not pivot; wherever it could mislead (a small pivot, large multipliers, or a share
- * within 1e-6 of zero) the support is solved again from scratch with partial pivoting and,
- * if singular, for its whole solution set. Buffers are allocated once.
+ * does not pivot, so it only rules faces out: a face whose shares are not all clearly
+ * negative-free (every share above -1e-6) is solved again from scratch with partial
+ * pivoting and, if singular, for its whole solution set, and so is every face below a small
+ * pivot or large multipliers. Buffers are allocated once.
  */
 export function symmetricRestPoints(A: Float64Array, n: number, budget?: Budget): RestPointSet {
   if (n > MAX_ENUMERATED_STRATEGIES) throw new RangeError(`support enumeration is limited to ${MAX_ENUMERATED_STRATEGIES} strategies`);
@@ -236,7 +237,7 @@ export function symmetricRestPoints(A: Float64Array, n: number, budget?: Budget)
     }
     U[ld + d] = piv;
     y[d] = yd;
-    return Math.abs(piv) > 1e-8 * scale && growth < 1e8;
+    return Math.abs(piv) > 1e-8 * scale && growth < 1e6;
   };
 
   /** Solves the current support (size s) from scratch, with pivoting and singular-face analysis. */
@@ -291,13 +292,9 @@ export function symmetricRestPoints(A: Float64Array, n: number, budget?: Budget)
         if (v < -1e-6) return; // clearly outside the face
       }
     }
-    if (minShare <= 1e-6) {
-      if (minShare > -1e-6) fresh(s); // near the boundary: decide with pivoting
-      return;
-    }
-    const state = new Float64Array(n);
-    for (let c = 1; c < d; c++) state[idx[c - 1] as number] = z[c] as number;
-    points.push({ state, support: Array.from(idx.subarray(0, s)) });
+    // Near the boundary the pivoted solve decides; a rest point found is solved again with
+    // pivoting too (a few thousand supports at most), so every reported state comes from it.
+    if (minShare > -1e-6) fresh(s);
   };
 
   const visit = (s: number, reliable: boolean): void => {

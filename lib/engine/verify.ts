@@ -268,7 +268,7 @@ function run(spec: ModelSpec, sha: string, budget: Budget): Report {
       }));
       const faces = base.kind === "symmetric" ? 2 ** base.n - 1 : (2 ** base.m - 1) * (2 ** base.k - 1);
       restNote = `Rest points of the replicator dynamics were found by enumerating all ${faces} supports and solving each face's linear system (Gaussian elimination with partial pivoting; pivots below 1e-12 of the payoff scale count as singular, and singular faces were solved for their full solution set).`;
-      if (an.continua.length > 0) restNote += ` The game has a continuum of rest points on ${an.continua.length} face${an.continua.length === 1 ? "" : "s"}; the list holds the isolated rest points only.`;
+      if (an.continua.length > 0) restNote += ` The game has a continuum of rest points on ${an.continua.length} face${an.continua.length === 1 ? "" : "s"}; the list holds only the rest points that are the unique solution of their face, and one lying on the boundary of such a face may still belong to the continuum.`;
       if (an.undecided.length > 0) restNote += ` ${an.undecided.length} singular face${an.undecided.length === 1 ? "" : "s"} could not be resolved.`;
     } catch (e) {
       if (!(e instanceof BudgetExceeded)) throw e;

@@ -183,7 +183,7 @@ describe("claims: decisions and the verdict", () => {
     expect(claim(r, "count").message).toMatch(/has a continuum of rest points \(on the face spanned by a, b\), so the number of rest points is infinite/);
     expect(claim(r, "on-the-edge").status).toBe("inconclusive");
     expect(claim(r, "on-the-edge").message).toMatch(/but the game has a continuum of rest points \(support a, b\), which the state may lie on/);
-    expect(r.notes?.[0]).toMatch(/continuum of rest points on 2 faces; the list holds the isolated rest points only/);
+    expect(r.notes?.[0]).toMatch(/continuum of rest points on 2 faces; the list holds only the rest points that are the unique solution of their face, and one lying on the boundary of such a face may still belong to the continuum\./);
   });
 
   it("Nash and ESS claims with holds false, and states that are no rest point", () => {
