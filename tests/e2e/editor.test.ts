@@ -169,6 +169,8 @@ describe("an editor reviews, requests changes, then verifies", () => {
     expect(await upload(V3)).toBe(3);
     await page.goto(`/workspace/venues/${DEMO_VENUE.slug}?q=${encodeURIComponent(slug)}`);
     await expect.poll(async () => (await page.getByTestId("queue-row").first().textContent()) ?? "", { timeout: 10_000 }).toContain("v3");
+    expect(await page.getByTestId("queue-row").first().textContent()).toContain("after v2: changes requested");
+    await shoot(page, "queue-resubmitted");
     await page.getByTestId("queue-row").first().getByTestId("queue-review-link").click();
     await page.waitForURL(`**/review/${slug}/v/3`);
     expect(await page.getByTestId("report-view").getAttribute("data-verdict")).toBe("confirmed");
