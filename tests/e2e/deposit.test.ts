@@ -55,6 +55,22 @@ async function chooseFile(page: Page, widget: string, file: string): Promise<voi
   await page.locator(`[data-testid="${widget}-widget"] input[type=file]`).first().setInputFiles(file);
 }
 
+/** Drops a file on the widget the way a browser does (dragenter, dragover, drop with a DataTransfer). */
+async function dropFile(page: Page, widget: string, name: string, text: string, type: string): Promise<void> {
+  await page.evaluate(
+    ({ selector, name, text, type }) => {
+      const target = document.querySelector(selector);
+      if (target === null) throw new Error(`no drop zone ${selector}`);
+      const data = new DataTransfer();
+      data.items.add(new File([text], name, { type }));
+      for (const kind of ["dragenter", "dragover", "drop"]) {
+        target.dispatchEvent(new DragEvent(kind, { bubbles: true, cancelable: true, dataTransfer: data }));
+      }
+    },
+    { selector: `[data-testid="${widget}-widget"] .uppy-Dashboard-inner`, name, text, type },
+  );
+}
+
 function markNoReload(page: Page): Promise<void> {
   return page.evaluate(() => {
     Object.assign(window, { __restpointNoReload: true });
@@ -108,6 +124,18 @@ describe("an author depositing a model", () => {
     expect(polls.length).toBeGreaterThan(0);
     await screenshot(page, "deposit-model-entry-v1");
 
+    // The widget refuses a wrong type and an oversize file before sending anything.
+    let uploadsSent = 0;
+    page.on("request", (r) => {
+      if (r.method() === "POST" && r.url().endsWith(`/api/v1/models/${slug}/versions`)) uploadsSent += 1;
+    });
+    await dropFile(page, "spec-upload", "notes.txt", "not a spec", "text/plain");
+    await page.getByTestId("spec-upload-widget").locator(".uppy-Informer").getByText("You can only upload").first().waitFor();
+    await screenshot(page, "deposit-model-entry-refused-type");
+    await dropFile(page, "spec-upload", "huge.json", `{"pad": "${"x".repeat(1_000_100)}"}`, "application/json");
+    await page.getByTestId("spec-upload-widget").locator(".uppy-Informer").getByText("exceeds maximum allowed size").first().waitFor();
+    expect(uploadsSent).toBe(0);
+
     // The same content again: no new version, and the page says which version it matches.
     await chooseFile(page, "spec-upload", writeSpec("same.json", JSON.stringify(JSON.parse(exampleText))));
     await page.getByTestId("spec-upload-result").getByText("is identical to v1").waitFor();
@@ -142,7 +170,7 @@ describe("an author depositing a model", () => {
     await expect(page.getByTestId(`supplement-upload-v1-limits`).textContent()).resolves.toBe(
       "Supplementary files: CSV, PDF, ZIP or plain text, up to 50 MB each.",
     );
-    await chooseFile(page, "supplement-upload-v1", writeSpec("field-counts.csv", "patch,holders\n1,4\n2,6\n"));
+    await dropFile(page, "supplement-upload-v1", "field-counts.csv", "patch,holders\n1,4\n2,6\n", "text/csv");
     await page.getByTestId("file-list").getByText("field-counts.csv").waitFor();
     await chooseFile(page, "supplement-upload-v1", writeSpec("paper.pdf", "this is not a PDF"));
     await page
@@ -158,7 +186,7 @@ describe("an author depositing a model", () => {
     corrected.summary = `${corrected.summary} Corrected: the fixation claim's note now says what was measured.`;
     for (const c of corrected.claims) if (c.id === "holder-fixation") c.note = "Measured in the field season of the fictional meadow.";
     await markNoReload(page);
-    await chooseFile(page, "spec-upload", writeSpec("meadow-v2.json", JSON.stringify(corrected, null, 2)));
+    await dropFile(page, "spec-upload", "meadow-v2.json", JSON.stringify(corrected, null, 2), "application/json");
     await page.getByTestId("spec-upload-result").getByText("v2 was made from meadow-v2.json").waitFor();
     await page.getByTestId("version-2-state").locator("[data-verdict]").waitFor({ timeout: 60_000 });
     expect(await stillNoReload(page)).toBe(true);
