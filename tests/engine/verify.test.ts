@@ -147,6 +147,15 @@ describe("claims: decisions and the verdict", () => {
     expectClose(claim(r, "ess-thirds").deviation ?? Number.NaN, 2 / 3 * 1e-6, 1e-6);
   });
 
+  it("a tolerance of 0 asks for an exact match, which a vertex meets", () => {
+    const r = verifySpec(spec(rps(2, 1), [
+      { id: "vertex", kind: "rest-point", state: [1, 0, 0], tolerance: 0 },
+      { id: "thirds", kind: "rest-point", state: [0.333333, 0.333333, 0.333334], tolerance: 0 },
+    ]));
+    expect(claim(r, "vertex")).toMatchObject({ status: "confirmed", deviation: 0, tolerance: 0 });
+    expect(claim(r, "thirds").status).toBe("contradicted");
+  });
+
   it("zero-sum rock-paper-scissors: a stability claim at the centre is inconclusive, not confirmed", () => {
     const r = verifySpec(spec(rps(1, 1), [
       { id: "centre-stable", kind: "rest-point", state: [1 / 3, 1 / 3, 1 / 3], stability: "asymptotically-stable" },
