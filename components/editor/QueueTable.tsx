@@ -303,7 +303,7 @@ export function QueueTable({ venueSlug, initial }: { venueSlug: string; initial:
                       {r.author.email}
                     </div>
                   </td>
-                  <td className="px-2.5 py-2.5 font-mono text-xs whitespace-nowrap">
+                  <td className="max-w-[8rem] px-2.5 py-2.5 font-mono text-xs">
                     v{r.version.number}
                     {r.previousDecision !== null ? (
                       <div className="font-sans text-2xs text-ink-faint" title={`Version ${r.previousDecision.number}: ${OUTCOME_WORDS[r.previousDecision.outcome]}`}>
