@@ -7,7 +7,7 @@
 import { analyzePoint, type AnalyzedPoint, type Analysis } from "./analysis";
 import { BudgetExceeded } from "./budget";
 import type { Budget } from "./budget";
-import { vectorField } from "./dynamics";
+import { KINK_BAND, vectorField } from "./dynamics";
 import { fixationProbability } from "./moran";
 import { findRestPoints } from "./newton";
 import { bimatrixNash, symmetricNash } from "./nash";
@@ -150,6 +150,48 @@ function restPointAt(deviation: number | undefined): string {
   return (deviation ?? 0) === 0 ? "The claimed state is a rest point and" : `The rest point ${fmt(deviation ?? 0)} from the claimed state`;
 }
 
+/**
+ * Where BNN and Smith dynamics are not differentiable: a pure strategy whose payoff ties
+ * with the mean (BNN's [f_i - phi]+) or with another strategy's payoff in use (Smith's
+ * [f_i - f_j]+), within the kink band of dynamics.ts. Linear stability decides nothing
+ * there. Returns a phrase naming the tie, or null.
+ */
+function kinkAt(game: CompiledGame, dynamics: DynamicsSpec, x: Float64Array): string | null {
+  if (dynamics.kind !== "brown-von-neumann-nash" && dynamics.kind !== "smith") return null;
+  const r = game.kind === "symmetric" ? symmetricNash(game.A, game.n, x) : bimatrixNash(game.A, game.B, game.m, game.k, x);
+  let scale = 0;
+  for (const M of game.kind === "symmetric" ? [game.A] : [game.A, game.B]) for (const v of M) scale = Math.max(scale, Math.abs(v));
+  const band = KINK_BAND * (1 + scale);
+  const names = game.kind === "symmetric" ? game.strategies : [...game.populations[0].strategies, ...game.populations[1].strategies];
+  const blocks = game.kind === "symmetric" ? [[0, game.n]] : [[0, game.m], [game.m, game.k]];
+  for (const [b, [o = 0, size = 0]] of blocks.entries()) {
+    for (let i = o; i < o + size; i++) {
+      const fi = r.payoffs[i] ?? 0;
+      if (dynamics.kind === "brown-von-neumann-nash") {
+        if (Math.abs(fi - (r.mean[b] ?? 0)) > band) continue;
+        // At a pure state of its population, f_i - phi = sum_j x_j (f_i - f_j) keeps one sign
+        // nearby unless some strategy earns more and another less: then no kink is crossed.
+        if ((x[i] ?? 0) === 1) {
+          let above = false;
+          let below = false;
+          for (let j = o; j < o + size; j++) {
+            if (j === i) continue;
+            const d = (r.payoffs[j] ?? 0) - fi;
+            if (d > band) above = true;
+            if (d < -band) below = true;
+          }
+          if (!(above && below)) continue;
+        }
+        return `${names[i] ?? "a strategy"} earns exactly the average payoff`;
+      }
+      for (let j = i + 1; j < o + size; j++) {
+        if (Math.abs(fi - (r.payoffs[j] ?? 0)) <= band && Math.max(x[i] ?? 0, x[j] ?? 0) > 0) return `${names[i] ?? "a strategy"} and ${names[j] ?? "another"} earn the same`;
+      }
+    }
+  }
+  return null;
+}
+
 function presentEigenvalues(p: { eigenvalues: [number, number][] }): string {
   return p.eigenvalues.map(([re, im]) => (im === 0 ? fmt(re) : `${fmt(re)} ${im < 0 ? "-" : "+"} ${fmt(Math.abs(im))}i`)).join(", ");
 }
@@ -231,8 +273,16 @@ function restPointClaim(claim: Extract<Claim, { kind: "rest-point" }>, ctx: Clai
     };
   }
   const computed = { state: ctx.present(game, point.state), stability: point.stability, eigenvalues: roundEigenvalues(point.eigenvalues, point.scale) };
+  const kink = kinkAt(game, ctx.dynamics, point.state);
   const where = (deviation ?? 0) === 0 ? "The claimed state is a rest point" : `A rest point lies ${fmt(deviation ?? 0)} from the claimed state (tolerance ${fmt(tolerance)})`;
   const ev = `restricted eigenvalues ${presentEigenvalues(point)}`;
+  if (kink !== null) {
+    const why = `the ${ctx.dynamics.kind} dynamics is not differentiable there (${kink}, where the switching rate has a kink), so linearisation decides nothing about its stability`;
+    if (claim.stability === undefined) {
+      return { ...base, status: "confirmed", message: `${where}; ${why}.`, deviation: deviation ?? 0, computed };
+    }
+    return { ...base, status: "inconclusive", message: `${where}, but ${why}.`, deviation: deviation ?? 0, computed };
+  }
   if (claim.stability === undefined) {
     return { ...base, status: "confirmed", message: `${where}; it is ${words(point.stability)} (${ev}).`, deviation: deviation ?? 0, computed };
   }

@@ -323,6 +323,25 @@ describe("claims: decisions and the verdict", () => {
     expect(r.notes?.join(" ")).toMatch(/Rest points of the logit dynamics were located by Newton's method/);
   });
 
+  it("BNN and Smith dynamics: stability at a kink is inconclusive, existence is still decided", () => {
+    for (const kind of ["brown-von-neumann-nash", "smith"]) {
+      const r = verifySpec(spec(rps(2, 1), [
+        { id: "centre", kind: "rest-point", state: [1 / 3, 1 / 3, 1 / 3], stability: "asymptotically-stable" },
+        { id: "centre-exists", kind: "rest-point", state: [1 / 3, 1 / 3, 1 / 3] },
+      ], { dynamics: { kind } }));
+      expect(claim(r, "centre").status).toBe("inconclusive");
+      expect(claim(r, "centre").message).toMatch(new RegExp(`^The claimed state is a rest point, but the ${kind} dynamics is not differentiable there \\((Rock earns exactly the average payoff|Rock and Paper earn the same), where the switching rate has a kink\\), so linearisation decides nothing about its stability\\.$`));
+      expect(claim(r, "centre-exists").status).toBe("confirmed");
+    }
+    // At pure Hawk of a hawk-dove game with V > C Dove earns less: the field is smooth there, and
+    // with x the hawk share it reads x' = (1-x)^2 (f_H - f_D) (derived here), so the eigenvalue is 0.
+    const hd = verifySpec(spec(hawkDove, [{ id: "hawk", kind: "rest-point", state: [1, 0], stability: "non-hyperbolic" }], {
+      parameters: { V: 3, C: 1 },
+      dynamics: { kind: "brown-von-neumann-nash" },
+    }));
+    expect(claim(hd, "hawk").status).toBe("confirmed");
+  });
+
   it("a run beyond its step budget leaves its claims inconclusive with budget exceeded", () => {
     const r = verifySpec(spec(hawkDove, [{ id: "final", kind: "final-state", experiment: "run", state: [0.666667, 0.333333] }], {
       parameters: { V: 2, C: 3 },
