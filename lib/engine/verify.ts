@@ -297,6 +297,9 @@ function run(spec: ModelSpec, sha: string, budget: Budget): Report {
   );
   if (dynamics.kind !== "replicator") {
     notes.push(`Rest points of the ${dynamics.kind} dynamics were located by Newton's method on the state space, started from the claimed state, the replicator's rest points and a grid.`);
+    if (dynamics.kind === "brown-von-neumann-nash" || dynamics.kind === "smith") {
+      notes.push("This dynamics is not differentiable where payoffs tie (as at every mixed Nash equilibrium); stability claims at such rest points are left inconclusive.");
+    }
   }
   if (experiments.length > 0) {
     notes.push(

@@ -3,7 +3,7 @@ import { readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
 import { ENGINE_VERSION, verifySpec, verifySpecText } from "@/lib/engine/verify";
 import type { ClaimResult, Report } from "@/lib/engine/types";
-import { expectClose } from "../support/close";
+import { expectClose, seededRandom } from "../support/close";
 
 type Json = Record<string, unknown>;
 const exampleText = readFileSync("schemas/examples/meadow-foragers.json", "utf8");
@@ -132,6 +132,41 @@ describe("verifySpecText: input that never becomes a spec", () => {
     expect(r.verdict).toBe("invalid");
     expect(r.errors).toEqual([{ path: "/format", message: 'The format must be "restpoint/model@1"; this file says "restpoint/model@0".' }]);
     expect(r.experiments).toEqual([]);
+  });
+});
+
+describe("verifySpec never throws on damaged input", () => {
+  it("answers 400 random mutations of the example spec with a report", () => {
+    const rnd = seededRandom(77);
+    const junk: unknown[] = [null, true, -1, 0, 1e308, -1e-308, "", "x", "V^999", [], {}, [[]], [0.5, 0.5], [[1, 0], [0, 1]], { kind: "symmetric" }, "a".repeat(600)];
+    const paths = (v: unknown, prefix: (string | number)[] = [], out: (string | number)[][] = []): (string | number)[][] => {
+      out.push(prefix);
+      if (Array.isArray(v)) v.forEach((x, i) => paths(x, [...prefix, i], out));
+      else if (v !== null && typeof v === "object") for (const [k, x] of Object.entries(v)) paths(x, [...prefix, k], out);
+      return out;
+    };
+    const all = paths(example).filter((p) => p.length > 0);
+    for (let trial = 0; trial < 400; trial++) {
+      const copy = structuredClone(example) as Record<string, unknown>;
+      for (let edits = 0; edits < 1 + Math.floor(rnd() * 3); edits++) {
+        const p = all[Math.floor(rnd() * all.length)] ?? [];
+        let parent: unknown = copy;
+        for (const key of p.slice(0, -1)) parent = parent === null || typeof parent !== "object" ? undefined : (parent as Record<string | number, unknown>)[key];
+        if (parent === null || typeof parent !== "object") continue;
+        const last = p[p.length - 1] ?? "";
+        if (rnd() < 0.2) delete (parent as Record<string | number, unknown>)[last];
+        else (parent as Record<string | number, unknown>)[last] = junk[Math.floor(rnd() * junk.length)];
+      }
+      const report = verifySpec(copy, { budget: { wallClockMs: 2000 } });
+      expect(["confirmed", "contradicted", "inconclusive", "invalid"]).toContain(report.verdict);
+      if (report.verdict === "invalid") {
+        expect(report.errors.length).toBeGreaterThan(0);
+        for (const e of report.errors) {
+          expect(e.path === "" || e.path.startsWith("/")).toBe(true);
+          expect(e.message).toMatch(/^[A-Z"].*[.)]$/);
+        }
+      }
+    }
   });
 });
 
@@ -332,6 +367,7 @@ describe("claims: decisions and the verdict", () => {
       expect(claim(r, "centre").status).toBe("inconclusive");
       expect(claim(r, "centre").message).toMatch(new RegExp(`^The claimed state is a rest point, but the ${kind} dynamics is not differentiable there \\((Rock earns exactly the average payoff|Rock and Paper earn the same), where the switching rate has a kink\\), so linearisation decides nothing about its stability\\.$`));
       expect(claim(r, "centre-exists").status).toBe("confirmed");
+      expect(r.notes?.join(" ")).toMatch(/stability claims at such rest points are left inconclusive/);
     }
     // At pure Hawk of a hawk-dove game with V > C Dove earns less: the field is smooth there, and
     // with x the hawk share it reads x' = (1-x)^2 (f_H - f_D) (derived here), so the eigenvalue is 0.
