@@ -115,16 +115,19 @@ export function ModelForm({ initial, venues, action, submitLabel }: ModelFormPro
               placeholder="0000-0000-0000-0000"
             />
             <Field label="Affiliation" name={`authors.${i}.affiliation`} id={`author-${i}-affiliation`} value={a.affiliation} onChange={setAuthor(i, "affiliation")} error={err(`/authors/${i}/affiliation`)} />
-            <Button
-              type="button"
-              kind="quiet"
-              className="sm:mt-7"
-              onClick={() => update({ ...values, authors: values.authors.filter((_, j) => j !== i) })}
-              disabled={values.authors.length <= 1}
-              aria-label={`Remove author ${i + 1}`}
-            >
-              Remove
-            </Button>
+            {values.authors.length > 1 ? (
+              <Button
+                type="button"
+                kind="quiet"
+                className="sm:mt-7"
+                onClick={() => update({ ...values, authors: values.authors.filter((_, j) => j !== i) })}
+                aria-label={`Remove author ${i + 1}`}
+              >
+                Remove
+              </Button>
+            ) : (
+              <span aria-hidden="true" />
+            )}
           </div>
         ))}
         <div>

@@ -59,6 +59,7 @@ export function SpecUpload({ slug, modelKey }: { slug: string; modelKey: string 
         note={SPEC_NOTE}
         onResult={onResult}
         height={220}
+        dropText="Drop the specification here or %{browseFiles}"
       />
       <div aria-live="polite" data-testid="spec-upload-result">
         {shown?.kind === "created" && (

@@ -38,6 +38,7 @@ export function SupplementUpload({ slug, number }: { slug: string; number: numbe
         note={SUPPLEMENT_NOTE}
         onResult={onResult}
         height={200}
+        dropText="Drop data, a PDF or an archive here, or %{browseFiles}"
       />
       {lines.length > 0 && (
         <ul aria-live="polite" className="space-y-1 text-sm" data-testid="supplement-upload-result">

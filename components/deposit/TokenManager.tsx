@@ -1,13 +1,13 @@
 "use client";
 /** Create (shown once), list and revoke personal API tokens. */
 import { useRouter } from "next/navigation";
-import { useState, useTransition } from "react";
+import { useEffect, useState, useTransition } from "react";
 import { Button } from "@/components/ui/Button";
 import { Field } from "@/components/ui/Field";
 import { Notice } from "@/components/ui/Notice";
 import type { ApiTokenInfo } from "@/lib/api-tokens";
 
-export type TokenActionResult = { ok: true; token: string | null; name: string } | { ok: false; message: string };
+export type TokenActionResult = { ok: true; token: string | null; info: ApiTokenInfo } | { ok: false; message: string };
 
 export interface TokenManagerProps {
   tokens: ApiTokenInfo[];
@@ -29,6 +29,9 @@ export function TokenManager({ tokens, origin, create, revoke }: TokenManagerPro
   const [copied, setCopied] = useState(false);
   const [notice, setNotice] = useState<string | null>(null);
   const [pending, startTransition] = useTransition();
+  // Shown at once from the action's answer; the server's list replaces it after the refresh.
+  const [list, setList] = useState(tokens);
+  useEffect(() => setList(tokens), [tokens]);
 
   function submit(e: React.FormEvent) {
     e.preventDefault();
@@ -43,7 +46,8 @@ export function TokenManager({ tokens, origin, create, revoke }: TokenManagerPro
         setError(r.message);
         return;
       }
-      setFresh(r.token === null ? null : { token: r.token, name: r.name });
+      setFresh(r.token === null ? null : { token: r.token, name: r.info.name });
+      setList((prev) => [r.info, ...prev.filter((t) => t.id !== r.info.id)]);
       setCopied(false);
       setNotice(null);
       setName("");
@@ -54,7 +58,8 @@ export function TokenManager({ tokens, origin, create, revoke }: TokenManagerPro
   function onRevoke(t: ApiTokenInfo) {
     startTransition(async () => {
       const r = await revoke(t.id);
-      setNotice(r.ok ? `The token “${r.name}” was revoked; requests with it are now refused.` : r.message);
+      if (r.ok) setList((prev) => prev.map((x) => (x.id === r.info.id ? r.info : x)));
+      setNotice(r.ok ? `The token “${r.info.name}” was revoked; requests with it are now refused.` : r.message);
       router.refresh();
     });
   }
@@ -68,8 +73,8 @@ export function TokenManager({ tokens, origin, create, revoke }: TokenManagerPro
     }
   }
 
-  const active = tokens.filter((t) => t.revokedAt === null);
-  const revoked = tokens.filter((t) => t.revokedAt !== null);
+  const active = list.filter((t) => t.revokedAt === null);
+  const revoked = list.filter((t) => t.revokedAt !== null);
   return (
     <div className="flex flex-col gap-8">
       {fresh !== null && (

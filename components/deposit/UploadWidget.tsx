@@ -27,6 +27,8 @@ export interface UploadWidgetProps {
   note: string;
   onResult: (outcome: UploadOutcome) => void;
   height?: number;
+  /** The drop area's invitation, with %{browseFiles} where the file-chooser link goes. */
+  dropText?: string;
 }
 
 function xhrOf(error: unknown): XMLHttpRequest | null {
@@ -53,7 +55,7 @@ function pageTheme(): "light" | "dark" | "auto" {
   return "auto";
 }
 
-export function UploadWidget({ id, endpoint, fieldName, restrictions, note, onResult, height = 240 }: UploadWidgetProps) {
+export function UploadWidget({ id, endpoint, fieldName, restrictions, note, onResult, height = 240, dropText = "Drop files here or %{browseFiles}" }: UploadWidgetProps) {
   const onResultRef = useRef(onResult);
   onResultRef.current = onResult;
   const [theme, setTheme] = useState<"light" | "dark" | "auto">("auto");
@@ -115,6 +117,7 @@ export function UploadWidget({ id, endpoint, fieldName, restrictions, note, onRe
         hideProgressDetails={false}
         showRemoveButtonAfterComplete={false}
         aria-describedby={`${id}-limits`}
+        locale={{ strings: { dropPasteFiles: dropText, browseFiles: "choose from your computer" } }}
       />
     </div>
   );

@@ -19,7 +19,7 @@ export async function createTokenAction(name: unknown): Promise<TokenActionResul
   try {
     const { token, info } = await createApiToken(me.userId, { name: typeof name === "string" ? name : "" });
     revalidatePath("/workspace/settings/tokens");
-    return { ok: true, token, name: info.name };
+    return { ok: true, token, info };
   } catch (e) {
     return failure(e);
   }
@@ -30,7 +30,7 @@ export async function revokeTokenAction(id: unknown): Promise<TokenActionResult>
   try {
     const info = await revokeApiToken(me.userId, typeof id === "string" ? id : "");
     revalidatePath("/workspace/settings/tokens");
-    return { ok: true, token: null, name: info.name };
+    return { ok: true, token: null, info };
   } catch (e) {
     return failure(e);
   }
