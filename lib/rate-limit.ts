@@ -91,12 +91,13 @@ export class TokenBucketLimiter {
 }
 
 /**
- * The client's address: the first entry of X-Forwarded-For (set by the reverse proxy in front
- * of the app), else X-Real-IP, else the socket address the caller passes, else "unknown".
- * Keys are trimmed and capped so a forged header cannot grow memory per entry.
+ * The client's address: the last entry of X-Forwarded-For, which is the one the nearest
+ * reverse proxy appended (entries to its left come from the client and can be forged), else
+ * X-Real-IP, else the socket address the caller passes, else "unknown". Keys are trimmed and
+ * capped so a forged header cannot grow memory per entry.
  */
 export function clientKey(headers: Headers, remoteAddress?: string | null): string {
-  const forwarded = headers.get("x-forwarded-for")?.split(",")[0]?.trim();
+  const forwarded = headers.get("x-forwarded-for")?.split(",").at(-1)?.trim();
   const candidate = forwarded || headers.get("x-real-ip")?.trim() || remoteAddress?.trim() || "unknown";
   return candidate.slice(0, 64);
 }

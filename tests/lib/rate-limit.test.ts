@@ -77,8 +77,9 @@ describe("TokenBucketLimiter", () => {
 });
 
 describe("clientKey", () => {
-  it("takes the first X-Forwarded-For address", () => {
-    expect(clientKey(new Headers({ "x-forwarded-for": " 203.0.113.9 , 10.0.0.1" }))).toBe("203.0.113.9");
+  it("takes the address the nearest proxy appended to X-Forwarded-For, not the forgeable ones before it", () => {
+    expect(clientKey(new Headers({ "x-forwarded-for": " 203.0.113.9 , 198.51.100.7 " }))).toBe("198.51.100.7");
+    expect(clientKey(new Headers({ "x-forwarded-for": "203.0.113.9" }))).toBe("203.0.113.9");
   });
   it("falls back to X-Real-IP, then the socket address, then 'unknown'", () => {
     expect(clientKey(new Headers({ "x-real-ip": "198.51.100.4" }), "127.0.0.1")).toBe("198.51.100.4");
