@@ -93,6 +93,8 @@ export function QueueTable({ venueSlug, initial }: { venueSlug: string; initial:
   const [draft, setDraft] = useState({ q: initial.q, author: initial.author, version: initial.version, minContradicted: initial.minContradicted });
   const [loaded, setLoaded] = useState<Loaded | null>(null);
   const [busy, setBusy] = useState(false);
+  // Bumped to fetch the same page again (while some rows are still being checked).
+  const [tick, setTick] = useState(0);
   const ids = useId();
   const first = useRef(true);
 
@@ -132,7 +134,14 @@ export function QueueTable({ venueSlug, initial }: { venueSlug: string; initial:
         if (!ctrl.signal.aborted) setBusy(false);
       });
     return () => ctrl.abort();
-  }, [c, venueSlug]);
+  }, [c, venueSlug, tick]);
+
+  const checking = loaded?.kind === "page" && loaded.data.rows.some((r) => r.status === "awaiting-check");
+  useEffect(() => {
+    if (!checking) return;
+    const t = window.setTimeout(() => setTick((n) => n + 1), 5000);
+    return () => window.clearTimeout(t);
+  }, [checking, loaded]);
 
   const onSort = useCallback((s: QueueSort) => {
     setC((prev) => ({ ...prev, sort: s, dir: prev.sort === s && prev.dir === "desc" ? "asc" : prev.sort === s ? "desc" : s === "title" || s === "author" ? "asc" : "desc", page: 1 }));

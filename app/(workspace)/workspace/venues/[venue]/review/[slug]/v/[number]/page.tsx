@@ -5,6 +5,7 @@ import { BadgeSnippets } from "@/components/badge/BadgeSnippets";
 import { AuditTrail } from "@/components/editor/AuditTrail";
 import { DecisionForm } from "@/components/editor/DecisionForm";
 import { FindingsList } from "@/components/editor/FindingsList";
+import { RefreshWhile } from "@/components/editor/RefreshWhile";
 import { unclaimedFindings } from "@/components/editor/findings";
 import { OUTCOME_WORDS, formatWhen } from "@/components/editor/labels";
 import { StatusPill } from "@/components/editor/StatusPill";
@@ -95,6 +96,7 @@ export default async function ReviewPage({ params, searchParams }: Props) {
 
   return (
     <div className="flex flex-col gap-8">
+      <RefreshWhile active={report === null && ver.job?.state !== "failed"} />
       <Link href={`/workspace/venues/${v.slug}`} className="rp-link -mb-4 self-start text-sm">
         ← Queue of {v.name}
       </Link>
@@ -179,7 +181,7 @@ export default async function ReviewPage({ params, searchParams }: Props) {
       <Section id="review-report" title="Re-run report">
         {report === null ? (
           <Notice title={ver.job?.state === "failed" ? "The re-run failed." : "The re-run has not finished yet."}>
-            {ver.job?.state === "failed" ? (ver.job.lastError ?? "The author sees the error and can upload a corrected version.") : "Reload this page in a moment."}
+            {ver.job?.state === "failed" ? (ver.job.lastError ?? "The author sees the error and can upload a corrected version.") : "This page updates by itself when the report is in."}
           </Notice>
         ) : (
           <ReportView report={report} game={spec?.game} specClaims={spec?.claims} />
