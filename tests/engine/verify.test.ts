@@ -191,6 +191,19 @@ describe("claims: decisions and the verdict", () => {
     expect(claim(r, "thirds").status).toBe("contradicted");
   });
 
+  it("Zeeman's game (matrix from memory, Zeeman 1980): the barycentre is asymptotically stable and no ESS, in one report", () => {
+    const r = verifySpec(spec({ kind: "symmetric", strategies: ["e1", "e2", "e3"], payoffs: [[0, 6, -4], [-3, 0, 5], [-1, 3, 0]] }, [
+      { id: "stable", kind: "rest-point", state: [0.333333, 0.333333, 0.333334], stability: "asymptotically-stable" },
+      { id: "not-ess", kind: "ess", state: [0.333333, 0.333333, 0.333334], holds: false },
+      { id: "e1-ess", kind: "ess", state: [1, 0, 0] },
+    ]));
+    expect(r.verdict).toBe("confirmed");
+    const centre = r.restPoints?.find((p) => p.support.length === 3);
+    expect(centre).toMatchObject({ stability: "asymptotically-stable", nash: true, ess: false });
+    // -1/3 +- i sqrt(2)/3, derived in stability.test.ts
+    expect(centre?.eigenvalues).toEqual([[-0.333333333333, 0.471404520791], [-0.333333333333, -0.471404520791]]);
+  });
+
   it("zero-sum rock-paper-scissors: a stability claim at the centre is inconclusive, not confirmed", () => {
     const r = verifySpec(spec(rps(1, 1), [
       { id: "centre-stable", kind: "rest-point", state: [1 / 3, 1 / 3, 1 / 3], stability: "asymptotically-stable" },
