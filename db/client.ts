@@ -15,7 +15,10 @@ function open(url: string, authToken?: string): { client: Client; db: Database }
   if (url.startsWith("file:")) {
     mkdirSync(path.dirname(url.slice("file:".length)), { recursive: true });
   }
-  const client = createClient({ url, authToken });
+  // `timeout` is SQLite's busy timeout for embedded files, applied to every pooled connection
+  // (a PRAGMA would reach only one). It blocks the thread while it waits, so it is short; the
+  // queue and deposit code retry "database is locked" asynchronously (lib/jobs.ts withBusyRetry).
+  const client = createClient({ url, authToken, timeout: 250 });
   return { client, db: drizzle(client, { schema }) };
 }
 

@@ -9,10 +9,9 @@ import { db, rawClient } from "./client";
 
 export async function migrateDatabase(): Promise<void> {
   const client = rawClient();
-  // WAL lets the web process and workers read while one writes; busy_timeout waits instead of failing.
+  // WAL lets the web process and workers read while one writes (busy timeout: see db/client.ts).
   if (env.databaseUrl.startsWith("file:")) {
     await client.execute("PRAGMA journal_mode = WAL");
-    await client.execute("PRAGMA busy_timeout = 5000");
   }
   await client.execute("PRAGMA foreign_keys = ON");
   await migrate(db, { migrationsFolder: path.resolve("drizzle") });

@@ -23,6 +23,8 @@ const schema = z.object({
   MAIL_FROM: z.string().min(3).default("Restpoint <no-reply@restpoint.local>"),
   /** "1" runs the verification worker inside the web process (the default); "0" leaves it to `npm run worker`. */
   RESTPOINT_INLINE_WORKER: z.enum(["0", "1"]).default("1"),
+  /** Engine threads per worker (inline or `npm run worker`); one suits a 2-core machine beside the web server. */
+  RESTPOINT_WORKER_THREADS: z.coerce.number().int().min(1).max(64).default(1),
   /** "1" seeds the demo data at start when the database is empty of it. */
   RESTPOINT_DEMO: z.enum(["0", "1"]).optional(),
   /** Set by Next.js while it builds; build-time page-data collection must not need production secrets. */

@@ -38,7 +38,7 @@ const { values } = parseArgs({
 await migrateDatabase();
 const graceMs = positiveInt("grace-ms", values["grace-ms"], 10_000);
 const worker = new VerificationWorker({
-  concurrency: Math.max(1, positiveInt("threads", values.threads, 1)),
+  concurrency: Math.max(1, positiveInt("threads", values.threads, env.RESTPOINT_WORKER_THREADS)),
   leaseMs: positiveInt("lease-ms", values["lease-ms"], 60_000),
   pollMs: positiveInt("poll-ms", values["poll-ms"], 1000),
   runTimeoutMs: positiveInt("timeout-ms", values["timeout-ms"], 120_000),

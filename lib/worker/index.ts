@@ -18,7 +18,7 @@ const slot = globalThis as unknown as { __restpointWorker?: VerificationWorker }
 export function startInlineWorker(options: WorkerOptions = {}): VerificationWorker | null {
   if (env.RESTPOINT_INLINE_WORKER === "0") return null;
   if (slot.__restpointWorker === undefined) {
-    const worker = new VerificationWorker({ notify: mailAuthor, ...options });
+    const worker = new VerificationWorker({ notify: mailAuthor, concurrency: env.RESTPOINT_WORKER_THREADS, ...options });
     worker.start();
     // Uploads cut off by a crash leave temporary files; the server start is a good moment to clear them.
     void sweepTempUploads().catch((e: unknown) => console.warn("[restpoint] could not sweep temporary uploads:", e));
