@@ -108,9 +108,10 @@ function locateReplicator(ctx: ClaimContext, params: Parameters | undefined, x: 
       }
     }
     if (best !== undefined && bestD <= tol) return { point: best, deviation: bestD };
-    if (an.continua.length > 0 || an.undecided.length > 0) {
+    const face = [...an.continua, ...an.undecided].find((f) => mayLieOn(game, x, tol, f));
+    if (face !== undefined) {
       return {
-        inconclusive: `No isolated rest point lies within ${fmt(tol)} of the state, but the game has ${an.continua.length > 0 ? "a continuum of rest points" : "a degenerate face the engine could not resolve"} (support ${supportNames(game, (an.continua[0] ?? an.undecided[0]) ?? [])}), which the state may lie on.`,
+        inconclusive: `No isolated rest point lies within ${fmt(tol)} of the state, but the game has ${an.continua.includes(face) ? "a continuum of rest points" : "a degenerate face the engine could not resolve"} (support ${supportNames(game, face)}), which the state may lie on.`,
       };
     }
     return { deviation: Number.isFinite(bestD) ? bestD : undefined };
@@ -139,6 +140,26 @@ function locateReplicator(ctx: ClaimContext, params: Parameters | undefined, x: 
     }
   }
   return {};
+}
+
+/**
+ * Whether a rest point on the face `support` could lie within `tol` of x: every share
+ * outside the face must be at most tol, and the replicator field at x must be small. The
+ * field's Lipschitz constant in the max-norm on the state space is at most (2 + 3 dim) M
+ * (M the largest |payoff|; from the Jacobian's row sums, derived here), so a field larger
+ * than that times tol rules every rest point within tol out.
+ */
+function mayLieOn(game: CompiledGame, x: Float64Array, tol: number, support: number[]): boolean {
+  const inFace = new Set(support);
+  for (let i = 0; i < x.length; i++) if (!inFace.has(i) && (x[i] ?? 0) > tol) return false;
+  const field = vectorField(game, { kind: "replicator" });
+  const out = new Float64Array(field.dim);
+  field.rhs(x, out);
+  let M = 0;
+  for (const P of game.kind === "symmetric" ? [game.A] : [game.A, game.B]) for (const v of P) M = Math.max(M, Math.abs(v));
+  let size = 0;
+  for (const v of out) size = Math.max(size, Math.abs(v));
+  return size <= (2 + 3 * field.dim) * M * tol * (1 + 1e-9) + 1e-15;
 }
 
 function words(s: string): string {

@@ -240,6 +240,11 @@ describe("claims: decisions and the verdict", () => {
     expect(claim(r, "count").message).toMatch(/has a continuum of rest points \(on the face spanned by a, b\), so the number of rest points is infinite/);
     expect(claim(r, "on-the-edge").status).toBe("inconclusive");
     expect(claim(r, "on-the-edge").message).toMatch(/but the game has a continuum of rest points \(support a, b\), which the state may lie on/);
+    // far from every continuum: decided
+    const far = verifySpec(spec({ kind: "symmetric", strategies: ["a", "b", "c"], payoffs: [[1, 1, 0], [1, 1, 0], [0, 0, 2]] }, [
+      { id: "off", kind: "rest-point", state: [0.9, 0, 0.1] },
+    ]));
+    expect(claim(far, "off").status).toBe("contradicted");
     expect(r.notes?.[0]).toMatch(/continuum of rest points on 2 faces; the list holds only the rest points that are the unique solution of their face, and one lying on the boundary of such a face may still belong to the continuum\./);
   });
 
