@@ -138,7 +138,7 @@ export function PublicVersionView({ data, modelPage }: { data: PublicVersion; mo
             )}
           </Block>
 
-          {game !== undefined && spec !== undefined && report !== null && report.verdict !== "invalid" && (
+          {game !== undefined && spec !== undefined && report?.verdict !== "invalid" && (
             <Block
               id="try"
               title="Try your own values"
