@@ -163,7 +163,7 @@ function mayLieOn(game: CompiledGame, x: Float64Array, tol: number, support: num
 }
 
 function words(s: string): string {
-  return s.replace(/-/g, " ");
+  return s === "asymptotically-stable" ? "asymptotically stable" : s;
 }
 
 /** Subject of a sentence about the located rest point. */
@@ -296,7 +296,7 @@ function restPointClaim(claim: Extract<Claim, { kind: "rest-point" }>, ctx: Clai
   const computed = { state: ctx.present(game, point.state), stability: point.stability, eigenvalues: roundEigenvalues(point.eigenvalues, point.scale) };
   const kink = kinkAt(game, ctx.dynamics, point.state);
   const where = (deviation ?? 0) === 0 ? "The claimed state is a rest point" : `A rest point lies ${fmt(deviation ?? 0)} from the claimed state (tolerance ${fmt(tolerance)})`;
-  const ev = `restricted eigenvalues ${presentEigenvalues(point)}`;
+  const ev = `restricted eigenvalues ${presentEigenvalues({ eigenvalues: roundEigenvalues(point.eigenvalues, point.scale) })}`;
   if (kink !== null) {
     const why = `the ${ctx.dynamics.kind} dynamics is not differentiable there (${kink}, where the switching rate has a kink), so linearisation decides nothing about its stability`;
     if (claim.stability === undefined) {
@@ -418,7 +418,7 @@ function countClaim(claim: Extract<Claim, { kind: "rest-point-count" }>, ctx: Cl
   return {
     ...base,
     status: count === claim.count ? "confirmed" : "contradicted",
-    message: `Support enumeration finds ${count} isolated ${what}${count === claim.count ? ", as claimed" : `, not ${claim.count}`}.`,
+    message: `Support enumeration finds ${count} isolated ${count === 1 ? what.replace("rest points", "rest point") : what}${count === claim.count ? ", as claimed" : `, not ${claim.count}`}.`,
     deviation: Math.abs(count - claim.count),
     computed: { count, region },
   };

@@ -1,5 +1,5 @@
 import { createHash } from "node:crypto";
-import { readFileSync } from "node:fs";
+import { readdirSync, readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
 import { ENGINE_VERSION, verifySpec, verifySpecText } from "@/lib/engine/verify";
 import type { ClaimResult, Report } from "@/lib/engine/types";
@@ -74,6 +74,13 @@ describe("verifySpec: the report follows the contract", () => {
     expect(notes).toMatch(/Haigh's criterion/);
     expect(notes).toMatch(/odex .* relative tolerance 1e-10 and absolute tolerance 1e-12/);
     expect(notes).toMatch(/it is not a peer review/);
+  });
+
+  it("confirms every example spec under schemas/examples", () => {
+    for (const name of readdirSync("schemas/examples")) {
+      const r = verifySpecText(readFileSync(`schemas/examples/${name}`, "utf8"));
+      expect(r.verdict, `${name}: ${JSON.stringify(r.errors)} ${r.claims.filter((c) => c.status !== "confirmed").map((c) => c.message).join(" ")}`).toBe("confirmed");
+    }
   });
 
   it("is byte-identical on repeated runs and independent of formatting and key order", () => {
