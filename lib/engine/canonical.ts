@@ -6,9 +6,6 @@
 import { createHash } from "node:crypto";
 import canonicalize from "canonicalize";
 
-/** Inputs nested deeper than this are refused by validation; canonicalisation recurses, so it is not attempted on them. */
-export const MAX_DEPTH = 64;
-
 export function sha256Hex(data: string | Uint8Array): string {
   return createHash("sha256").update(data).digest("hex");
 }
@@ -23,21 +20,4 @@ export function canonicalJson(value: unknown): string {
 /** sha-256 hex of the canonical JSON of `value`. */
 export function specSha256(value: unknown): string {
   return sha256Hex(canonicalJson(value));
-}
-
-/** Nesting depth of a JSON value, computed without recursion (so hostile depth cannot overflow the stack). */
-export function jsonDepth(value: unknown, limit = Infinity): number {
-  let max = 0;
-  const stack: [unknown, number][] = [[value, 1]];
-  while (stack.length > 0) {
-    const top = stack.pop();
-    if (top === undefined) break;
-    const [v, d] = top;
-    if (v === null || typeof v !== "object") continue;
-    if (d > max) max = d;
-    if (max > limit) return max;
-    const children = Array.isArray(v) ? v : Object.values(v as Record<string, unknown>);
-    for (const c of children) if (c !== null && typeof c === "object") stack.push([c, d + 1]);
-  }
-  return max;
 }

@@ -8,7 +8,7 @@
 import Ajv2020, { type ErrorObject } from "ajv/dist/2020";
 import addFormats from "ajv-formats";
 import schema from "../../schemas/model-spec.v1.schema.json";
-import { MAX_DEPTH, jsonDepth } from "./canonical";
+import { MAX_DEPTH, jsonDepth } from "./json-depth";
 import { PayoffError, compileExpression, compileGame } from "./payoffs";
 import type { GameSpec, ModelSpec, Parameters, SpecError } from "./types";
 

@@ -7,7 +7,8 @@
  */
 import { analyzeGame, layoutOf, type Analysis } from "./analysis";
 import { Budget, BudgetExceeded, type BudgetLimits } from "./budget";
-import { MAX_DEPTH, jsonDepth, sha256Hex, specSha256 } from "./canonical";
+import { sha256Hex, specSha256 } from "./canonical";
+import { MAX_DEPTH, jsonDepth } from "./json-depth";
 import { decideClaim, flatten, type ClaimContext, type RunOutcome } from "./claims";
 import { vectorField } from "./dynamics";
 import { integrate } from "./integrate";

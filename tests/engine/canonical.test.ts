@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { canonicalJson, jsonDepth, sha256Hex, specSha256 } from "@/lib/engine/canonical";
+import { canonicalJson, sha256Hex, specSha256 } from "@/lib/engine/canonical";
+import { jsonDepth } from "@/lib/engine/json-depth";
 
 describe("canonical JSON and the spec hash (RFC 8785)", () => {
   it("sorts keys, drops whitespace and writes numbers as ECMAScript does (RFC 8785, sect. 3.2)", () => {
