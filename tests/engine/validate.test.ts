@@ -189,3 +189,22 @@ describe("validateSpec: semantic rules", () => {
     expect(MAX_INPUT_BYTES).toBe(1_000_000);
   });
 });
+
+describe("validateSpec runs in the browser too", () => {
+  it("imports nothing from Node, directly or through the engine modules it uses", async () => {
+    const { readFileSync } = await import("node:fs");
+    const seen = new Set<string>();
+    const visit = (file: string): void => {
+      if (seen.has(file)) return;
+      seen.add(file);
+      const text = readFileSync(file, "utf8");
+      for (const m of text.matchAll(/^import[^"']*["']([^"']+)["']/gm)) {
+        const spec = m[1] ?? "";
+        expect(spec.startsWith("node:"), `${file} imports ${spec}`).toBe(false);
+        if (spec.startsWith("./")) visit(`lib/engine/${spec.slice(2)}.ts`);
+      }
+    };
+    visit("lib/engine/validate.ts");
+    expect(seen.size).toBeGreaterThanOrEqual(4);
+  });
+});
