@@ -68,8 +68,11 @@ async function badge(path: string): Promise<string> {
 async function shoot(page: Page, name: string): Promise<void> {
   await screenshot(page, `editor-${name}-light`);
   await page.emulateMedia({ colorScheme: "dark" });
+  // Buttons ease their colours (transition-colors): let them settle before the picture.
+  await page.waitForTimeout(400);
   await screenshot(page, `editor-${name}-dark`);
   await page.emulateMedia({ colorScheme: "light" });
+  await page.waitForTimeout(400);
 }
 
 beforeAll(async () => {
@@ -207,5 +210,24 @@ describe("an editor reviews, requests changes, then verifies", () => {
     await adminPage.goto("/admin/venues");
     await adminPage.getByTestId(`venue-${DEMO_VENUE.slug}`).waitFor();
     await shoot(adminPage, "admin-venues");
+    // Create a venue through the form and assign the demo editor to it.
+    const newSlug = `estuary-${Date.now().toString(36)}`;
+    const create = adminPage.getByTestId("create-venue");
+    await create.getByLabel("Short name").fill("Not A Slug");
+    await create.getByLabel("Name", { exact: true }).fill("Estuary Notes");
+    await create.getByRole("button", { name: "Create venue" }).click();
+    await create.getByText("Lower-case letters, digits and single hyphens, like tidewater-letters.").waitFor();
+    await create.getByLabel("Short name").fill(newSlug);
+    await create.getByRole("button", { name: "Create venue" }).click();
+    await create.getByText("Created Estuary Notes.").waitFor();
+    const card = adminPage.getByTestId(`venue-${newSlug}`);
+    await card.waitFor();
+    await card.getByLabel("Editor's e-mail address").fill("nobody@example.test");
+    await card.getByRole("button", { name: "Assign editor" }).click();
+    await card.getByText("No account has this e-mail address.").waitFor();
+    await card.getByLabel("Editor's e-mail address").fill(demo("editor").email);
+    await card.getByRole("button", { name: "Assign editor" }).click();
+    await card.getByText("Tomas Ekwueme edits this venue.").waitFor();
+    await shoot(adminPage, "admin-venue-created");
   }, 240_000);
 });

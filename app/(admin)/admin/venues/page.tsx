@@ -27,20 +27,16 @@ export default async function AdminVenuesPage() {
           <ul className="flex flex-col gap-4">
             {venues.map((v) => (
               <li key={v.id} className="rp-card flex flex-col gap-4 p-5" data-testid={`venue-${v.slug}`}>
-                <div className="flex flex-wrap items-start justify-between gap-3">
-                  <div>
-                    <h3 className="text-lg font-semibold">{v.name}</h3>
-                    <p className="font-mono text-2xs text-ink-faint">{v.slug}</p>
-                    {v.description === "" ? null : <p className="mt-1 max-w-2xl text-sm text-ink-soft">{v.description}</p>}
-                  </div>
-                  <div className="flex flex-col items-start gap-1 text-sm sm:items-end">
-                    <p>
-                      <span className="font-mono">{v.awaitingDecision}</span> awaiting a decision · <span className="font-mono">{v.models}</span> model{v.models === 1 ? "" : "s"}
-                    </p>
+                <div className="flex flex-col gap-1">
+                  <h3 className="text-lg font-semibold">{v.name}</h3>
+                  <p className="font-mono text-2xs text-ink-faint">{v.slug}</p>
+                  {v.description === "" ? null : <p className="mt-1 max-w-2xl text-sm text-ink-soft">{v.description}</p>}
+                  <p className="mt-1 text-sm">
+                    <span className="font-mono">{v.awaitingDecision}</span> awaiting a decision · <span className="font-mono">{v.models}</span> model{v.models === 1 ? "" : "s"} ·{" "}
                     <Link className="rp-link" href={`/workspace/venues/${v.slug}`}>
                       Open the queue
                     </Link>
-                  </div>
+                  </p>
                 </div>
                 <div className="flex flex-col gap-2">
                   <h4 className="text-sm font-semibold">Editors</h4>
