@@ -418,7 +418,7 @@ function countClaim(claim: Extract<Claim, { kind: "rest-point-count" }>, ctx: Cl
   return {
     ...base,
     status: count === claim.count ? "confirmed" : "contradicted",
-    message: `Support enumeration finds ${count} isolated ${count === 1 ? what.replace("rest points", "rest point") : what}${count === claim.count ? ", as claimed" : `, not ${claim.count}`}.`,
+    message: `Support enumeration finds ${count} isolated ${count === 1 ? what.replace("rest points", "rest point") : what}${ctx.dynamics.kind === "replicator" ? "" : " of the replicator dynamics (counts always refer to it)"}${count === claim.count ? ", as claimed" : `, not ${claim.count}`}.`,
     deviation: Math.abs(count - claim.count),
     computed: { count, region },
   };

@@ -381,6 +381,8 @@ describe("claims: decisions and the verdict", () => {
     const share = 1 / (1 + Math.exp((fD - fH) / 0.1));
     expectClose(h, share, 1e-9, 1e-11);
     expect(r.notes?.join(" ")).toMatch(/Rest points of the logit dynamics were located by Newton's method/);
+    const count = verifySpec(spec(hawkDove, [{ id: "count", kind: "rest-point-count", count: 3 }], { parameters: { V: 2, C: 3 }, dynamics: { kind: "logit", noise: 0.1 } }));
+    expect(claim(count, "count").message).toBe("Support enumeration finds 3 isolated rest points of the replicator dynamics (counts always refer to it), as claimed.");
   });
 
   it("BNN and Smith dynamics: stability at a kink is inconclusive, existence is still decided", () => {
