@@ -255,6 +255,18 @@ describe("claims: decisions and the verdict", () => {
     expect(r.notes?.[0]).toMatch(/continuum of rest points on 2 faces; the list holds only the rest points that are the unique solution of their face, and one lying on the boundary of such a face may still belong to the continuum\./);
   });
 
+  it("a singular face the engine cannot resolve makes a count inconclusive, saying so", () => {
+    // Strategies a, b, c earn 0 against everything; d earns x_a - x_b - 0.8. Interior rest points
+    // form the plane x_a - x_b = 0.8, which meets the open simplex (e.g. at (0.85, 0.05, 0.05, 0.05))
+    // although the point of the plane nearest the barycentre lies outside it.
+    const r = verifySpec(spec({ kind: "symmetric", strategies: ["a", "b", "c", "d"], payoffs: [[0, 0, 0, 0], [0, 0, 0, 0], [0, 0, 0, 0], [0.2, -1.8, -0.8, -0.8]] }, [
+      { id: "interior", kind: "rest-point-count", count: 1, region: "interior" },
+    ]));
+    expect(claim(r, "interior").status).toBe("inconclusive");
+    expect(claim(r, "interior").message).toBe("A face of the state space (spanned by a, b, c, d) has a singular system whose rest points the engine could not resolve, so the count is not decided.");
+    expect(r.notes?.[0]).toMatch(/1 singular face could not be resolved\./);
+  });
+
   it("Nash and ESS claims with holds false, and states that are no rest point", () => {
     const r = verifySpec(spec(hawkDove, [
       { id: "dove-not-nash", kind: "nash-equilibrium", state: [0, 1], holds: false },
