@@ -23,6 +23,8 @@ const PASSWORD = "tidal-flat-notebook-7";
 const EXAMPLE_PATH = path.resolve("schemas/examples/meadow-foragers.json");
 const exampleText = readFileSync(EXAMPLE_PATH, "utf8");
 const work = mkdtempSync(path.join(os.tmpdir(), "restpoint-deposit-e2e-"));
+/** The first journey's private model, which the second author must not find. */
+let privateSlug = "";
 
 function writeSpec(name: string, text: string): string {
   const file = path.join(work, name);
@@ -104,6 +106,7 @@ describe("an author depositing a model", () => {
     await page.getByRole("button", { name: "Create the model entry" }).click();
     await page.waitForURL(/\/workspace\/models\/rp-[a-z0-9]+\?created=1$/);
     const slug = new URL(page.url()).pathname.split("/").pop() ?? "";
+    privateSlug = slug;
 
     // The restrictions are on screen before a file is chosen.
     await expect(page.getByTestId("spec-upload-limits").textContent()).resolves.toBe("One specification: a .json file up to 1 MB.");
@@ -260,6 +263,18 @@ describe("a script with an API token", () => {
     }
     expect(answer.state).toBe("finished");
     expect(answer.verdict).toBe("confirmed");
+
+    // Another author's private model is not there for this one, on pages and API alike.
+    expect(privateSlug).not.toBe("");
+    for (const p of [`/workspace/models/${privateSlug}`, `/workspace/models/${privateSlug}/v/1`]) {
+      await page.goto(p);
+      await page.getByTestId("status-404").waitFor();
+    }
+    await screenshot(page, "deposit-other-authors-model");
+    for (const p of [`/api/v1/models/${privateSlug}`, `/api/v1/models/${privateSlug}/versions/1/report`, `/api/v1/models/${privateSlug}/versions/1/files`]) {
+      expect((await fetch(`${baseUrl}${p}`, { headers: auth })).status, p).toBe(404);
+    }
+    await page.goto("/workspace/settings/tokens");
 
     // Revoked in the settings: the script is refused from then on.
     await page.getByRole("button", { name: "Revoke the token upload script" }).click();
