@@ -279,6 +279,39 @@ describe("report and job while verification runs and after", () => {
   });
 });
 
+describe("report of a public model and of a job that failed", () => {
+  it("serves a public model's versions and report to anonymous readers", async () => {
+    const slug = await newModel(alice);
+    await postSpec(slug, alice, exampleText);
+    const { PATCH } = await import("@/app/api/v1/models/[slug]/route");
+    await PATCH(jsonRequest("PATCH", `/api/v1/models/${slug}`, { token: alice.token }, { visibility: "public" }), ctx({ slug }));
+    const list = await versions.GET(request("GET", `/api/v1/models/${slug}/versions`), ctx({ slug }));
+    expect(list.status).toBe(200);
+    const pending = await reportRoute.GET(request("GET", `/api/v1/models/${slug}/versions/1/report`), ctx({ slug, number: "1" }));
+    expect(pending.status).toBe(202);
+    // Reading is open, uploading is not.
+    const upload = await versions.POST(
+      request("POST", `/api/v1/models/${slug}/versions`, { token: bob.token }, { body: exampleText, headers: { "content-type": "application/json" } }),
+      ctx({ slug }),
+    );
+    expect(upload.status).toBe(403);
+  });
+
+  it("answers state failed with the last error once every attempt failed", async () => {
+    const slug = await newModel(alice);
+    const b = (await (await postSpec(slug, alice, exampleText)).json()) as VersionAnswer;
+    const { db } = await import("@/db/client");
+    const { job } = await import("@/db/schema");
+    const { eq } = await import("drizzle-orm");
+    await db.update(job).set({ state: "failed", attempts: 3, lastError: "budget exceeded: the run took longer than 10 s of computing time" }).where(eq(job.id, b.version.job?.id ?? ""));
+    const res = await reportRoute.GET(request("GET", `/api/v1/models/${slug}/versions/1/report`, { token: alice.token }), ctx({ slug, number: "1" }));
+    expect(res.status).toBe(200);
+    const body = (await res.json()) as { state: string; error: string; report: null; job: { attempts: number } };
+    expect(body).toMatchObject({ state: "failed", error: "budget exceeded: the run took longer than 10 s of computing time", report: null });
+    expect(body.job.attempts).toBe(3);
+  });
+});
+
 describe("supplementary files", () => {
   let slug: string;
   beforeAll(async () => {
