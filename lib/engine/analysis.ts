@@ -18,6 +18,7 @@ import {
 import { classifyRestPoint } from "./stability";
 import { stateDimension, type CompiledGame, type DynamicsSpec, type Eigenvalue, type Stability } from "./types";
 
+/** A rest point of the replicator dynamics with its stability, Nash and ESS properties. */
 export interface AnalyzedPoint {
   state: Float64Array;
   support: number[];
@@ -29,6 +30,7 @@ export interface AnalyzedPoint {
   ess: EssResult | null;
 }
 
+/** The replicator rest points of one compiled game (one parameter set). */
 export interface Analysis {
   game: CompiledGame;
   /** false when the game is too large to enumerate. */
@@ -38,10 +40,12 @@ export interface Analysis {
   undecided: number[][];
 }
 
+/** Block sizes of the flat state: [n], or [m, k] for two populations. */
 export function layoutOf(game: CompiledGame): number[] {
   return game.kind === "symmetric" ? [game.n] : [game.m, game.k];
 }
 
+/** Whether the game is small enough for support enumeration (restpoints.ts limits). */
 export function canEnumerate(game: CompiledGame): boolean {
   return game.kind === "symmetric" ? game.n <= MAX_ENUMERATED_STRATEGIES : game.m + game.k <= MAX_ENUMERATED_BIMATRIX;
 }

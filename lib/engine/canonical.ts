@@ -6,6 +6,7 @@
 import { createHash } from "node:crypto";
 import canonicalize from "canonicalize";
 
+/** SHA-256 of text (as UTF-8) or bytes, as lower-case hex. */
 export function sha256Hex(data: string | Uint8Array): string {
   return createHash("sha256").update(data).digest("hex");
 }

@@ -24,6 +24,7 @@ import {
   type State,
 } from "./types";
 
+/** Default max-norm tolerance of each claim kind (the format's defaults; counts are exact). */
 export const DEFAULT_TOLERANCE: Record<Claim["kind"], number> = {
   "rest-point": 1e-6,
   "nash-equilibrium": 1e-6,
@@ -34,6 +35,7 @@ export const DEFAULT_TOLERANCE: Record<Claim["kind"], number> = {
   "fixation-probability": 1e-6,
 };
 
+/** A run of one experiment as the claims see it. */
 export interface RunOutcome {
   times: number[];
   states: Float64Array[];
@@ -64,6 +66,7 @@ export function flatten(state: State): Float64Array {
   return Float64Array.from(parts);
 }
 
+/** Max-norm distance between two flat states. */
 export function maxDistance(a: ArrayLike<number>, b: ArrayLike<number>): number {
   let d = 0;
   for (let i = 0; i < a.length; i++) d = Math.max(d, Math.abs((a[i] ?? 0) - (b[i] ?? 0)));

@@ -29,6 +29,7 @@ export const FORM_TOLERANCE = 1e-9;
 /** Alternative best replies beyond this many make the copositivity test too large; the answer is then undecided. */
 export const MAX_ALTERNATIVE_BEST_REPLIES = 16;
 
+/** Outcome of Haigh's test. */
 export interface EssResult {
   /** true / false, or null when the test could not be completed (see reason). */
   ess: boolean | null;

@@ -15,12 +15,14 @@
  */
 export const BEST_REPLY_TOLERANCE = 1e-9;
 
+/** Largest absolute payoff, at least 1: the scale tolerances are relative to. */
 export function payoffScale(...mats: Float64Array[]): number {
   let s = 0;
   for (const M of mats) for (let i = 0; i < M.length; i++) s = Math.max(s, Math.abs(M[i] ?? 0));
   return Math.max(1, s);
 }
 
+/** Outcome of a Nash check with the payoffs it was read from. */
 export interface NashResult {
   nash: boolean;
   /** Largest gain of a pure strategy over the mean payoff (per population for bimatrix games, the larger). */

@@ -18,6 +18,7 @@ import {
 } from "mathjs/number";
 import type { CompiledGame, GameSpec, Parameters, PayoffEntry } from "./types";
 
+/** Longest payoff expression accepted, in characters. */
 export const MAX_EXPRESSION_LENGTH = 500;
 
 /** A payoff expression the engine refuses; `path` is the JSON pointer of the entry. */
@@ -63,6 +64,7 @@ const FUNCTIONS: Record<string, { min: number; max: number; fn: (...a: number[])
   pow: { min: 2, max: 2, fn: Math.pow },
 };
 
+/** Names of the functions payoff expressions may call, sorted (for messages and documentation). */
 export const ALLOWED_FUNCTIONS: readonly string[] = Object.keys(FUNCTIONS).sort();
 
 const BINARY: Record<string, (a: number, b: number) => number> = {

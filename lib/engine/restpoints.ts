@@ -30,6 +30,7 @@ export const PIVOT_TOLERANCE = 1e-12;
 /** A share must exceed this to count as inside the support; smaller ones belong to a smaller face. */
 export const SHARE_TOLERANCE = 1e-12;
 
+/** One isolated rest point found by enumeration. */
 export interface RestPoint {
   /** Flat state: n shares, or m + k shares (population 1 first). */
   state: Float64Array;
@@ -37,6 +38,7 @@ export interface RestPoint {
   support: number[];
 }
 
+/** Everything the enumeration found: isolated points, and the faces it could not reduce to points. */
 export interface RestPointSet {
   points: RestPoint[];
   /** Supports (flat indices) whose face holds a continuum of rest points. */

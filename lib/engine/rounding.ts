@@ -5,6 +5,7 @@
  */
 import type { Eigenvalue } from "./types";
 
+/** v rounded to 12 significant digits, with -0 written as 0. */
 export function round12(v: number): number {
   if (!Number.isFinite(v)) return v;
   const r = Number(v.toPrecision(12));

@@ -56,6 +56,7 @@ export function restrictedJacobian(J: Float64Array, layout: number[]): { R: Floa
   return { R, size };
 }
 
+/** Classification of one rest point with the restricted eigenvalues it rests on. */
 export interface StabilityResult {
   stability: Stability;
   /** Sorted by real part descending, then imaginary part descending. */
@@ -78,6 +79,7 @@ export function classifyRestPoint(J: Float64Array, layout: number[]): StabilityR
   return { stability: classify(ev, scale), eigenvalues: ev, scale };
 }
 
+/** Stability class of restricted eigenvalues, with the non-hyperbolic band NONHYPERBOLIC_BAND * scale. */
 export function classify(ev: Eigenvalue[], scale: number): Stability {
   const band = NONHYPERBOLIC_BAND * scale;
   let inBand = false;

@@ -38,10 +38,12 @@ import { round12, roundEigenvalues } from "./rounding";
 
 export { ENGINE_VERSION };
 
+/** Options of a verification run. */
 export interface VerifyOptions {
   budget?: BudgetLimits;
 }
 
+/** Integrator tolerances and sample count when the spec gives none (the format's defaults). */
 export const DEFAULT_RELATIVE_TOLERANCE = 1e-10;
 export const DEFAULT_ABSOLUTE_TOLERANCE = 1e-12;
 export const DEFAULT_SAMPLES = 201;

@@ -1,5 +1,0 @@
-import { Shell } from "@/components/layout/Shell";
-
-export default function PublicLayout({ children }: { children: React.ReactNode }) {
-  return <Shell>{children}</Shell>;
-}
