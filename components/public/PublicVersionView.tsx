@@ -62,7 +62,7 @@ export function PublicVersionView({ data, modelPage }: { data: PublicVersion; mo
           <Link href="/models" className="hover:underline">
             Registry
           </Link>{" "}
-          · {model.slug} · version {version.number}
+          · <span className="normal-case">{model.slug}</span> · version {version.number}
           {data.latest ? " (newest)" : ` of ${older}`}
         </p>
         <h1 className="text-3xl font-bold tracking-tight break-words">{version.title}</h1>
