@@ -191,8 +191,15 @@ describe("an author depositing a model", () => {
     await markNoReload(page);
     await dropFile(page, "spec-upload", "meadow-v2.json", JSON.stringify(corrected, null, 2), "application/json");
     await page.getByTestId("spec-upload-result").getByText("v2 was made from meadow-v2.json").waitFor();
-    await page.getByTestId("version-2-state").locator("[data-verdict]").waitFor({ timeout: 60_000 });
+    // Straight to v2's page: while the job runs it shows the job's state, then the report, with no reload.
+    await page.getByRole("link", { name: "v2", exact: true }).click();
+    await page.waitForURL(`**/workspace/models/${slug}/v/2`);
+    await markNoReload(page);
+    await page.getByTestId("report-view").waitFor({ timeout: 60_000 });
     expect(await stillNoReload(page)).toBe(true);
+    await page.getByRole("link", { name: "All versions" }).click();
+    await page.waitForURL(`**/workspace/models/${slug}`);
+    await page.getByTestId("version-2-state").locator("[data-verdict]").waitFor({ timeout: 60_000 });
     await screenshot(page, "deposit-model-entry-v2");
     await page.emulateMedia({ colorScheme: "dark" });
     await screenshot(page, "deposit-model-entry-v2-dark");
