@@ -100,6 +100,29 @@ describe("symmetric support enumeration", () => {
     }
   });
 
+  it("bordered factors and fresh solves agree on degenerate integer games (many ties and singular faces)", () => {
+    const rnd = seededRandom(29);
+    for (let trial = 0; trial < 30; trial++) {
+      const n = 5 + (trial % 5);
+      const A = Float64Array.from({ length: n * n }, () => Math.floor(rnd() * 3));
+      const ours = symmetricRestPoints(A, n);
+      const ref: { state: Float64Array }[] = [];
+      const refContinua: string[] = [];
+      for (let mask = 1; mask < 2 ** n; mask++) {
+        const S = Array.from({ length: n }, (_, i) => i).filter((i) => (mask >> i) & 1);
+        const r = restPointOnSupport({ kind: "symmetric", n, A }, S);
+        if (r.kind === "point") ref.push({ state: r.state });
+        else if (r.kind !== "none") refContinua.push(`${r.kind}:${S.join(",")}`);
+      }
+      const oursFaces = [...ours.continua.map((f) => `continuum:${f.join(",")}`), ...ours.undecided.map((f) => `undecided:${f.join(",")}`)];
+      expect(oursFaces.sort(), `trial ${trial}`).toEqual(refContinua.sort());
+      const a = sorted(ours.points);
+      const b = sorted(ref);
+      expect(a.length, `trial ${trial}`).toBe(b.length);
+      a.forEach((x, i) => expectAllClose(x, b[i] ?? [], 1e-9, 1e-11));
+    }
+  });
+
   it("finds only true rest points: the replicator field vanishes at each", () => {
     const rnd = seededRandom(17);
     const n = 8;
