@@ -15,10 +15,11 @@ import type { GameSpec, ModelSpec, Report, Verdict } from "@/lib/engine/types";
 import { env } from "@/lib/env";
 import { NotFound, ValidationError } from "@/lib/errors";
 import { zodDetails } from "@/lib/http";
-import { getModel, loadVisibleVersion } from "@/lib/models";
+import { getModel } from "@/lib/models";
 import { readReport } from "@/lib/reports";
 import { readableSpec } from "@/lib/spec-view";
-import type { ModelView, VersionSummary } from "@/lib/types/deposit";
+import type { FileInfo, ModelView, VersionSummary } from "@/lib/types/deposit";
+import { getVersionById } from "@/lib/versions";
 
 export const DYNAMICS_KINDS = ["replicator", "replicator-mutator", "logit", "brown-von-neumann-nash", "smith"] as const;
 /** "pending": the newest version has no report yet. */
@@ -249,6 +250,8 @@ export interface PublicVersion {
   report: Report | null;
   /** True when the newest version is shown. */
   latest: boolean;
+  /** The version's supplementary files (downloads through /api/v1/files/[id]). */
+  supplements: FileInfo[];
 }
 
 /**
@@ -267,15 +270,16 @@ export async function loadPublicVersion(slug: string, number?: string): Promise<
     version = model.versions.find((v) => v.number === Number(number));
   }
   if (version === undefined) throw new NotFound("version");
-  const { version: row } = await loadVisibleVersion(version.id, null);
+  const view = await getVersionById(version.id, null);
   const stored = await readReport(version.id);
   return {
     model,
     version,
-    specText: row.specText,
-    readable: readableSpec(row.specText),
+    specText: view.specText,
+    readable: readableSpec(view.specText),
     report: stored?.report ?? null,
     latest: version.id === newest?.id,
+    supplements: view.files.filter((f) => f.purpose === "supplement"),
   };
 }
 

@@ -34,6 +34,12 @@ function Block({ id, title, children, lede }: { id: string; title: string; lede?
   );
 }
 
+function formatSize(bytes: number): string {
+  if (bytes >= 1024 * 1024) return `${(bytes / (1024 * 1024)).toFixed(1)} MB`;
+  if (bytes >= 1024) return `${Math.round(bytes / 1024)} KB`;
+  return `${bytes} bytes`;
+}
+
 /** Only http(s) links from user data become anchors. */
 function safeHref(url: string | null): string | null {
   if (url === null) return null;
@@ -223,6 +229,14 @@ export function PublicVersionView({ data, modelPage }: { data: PublicVersion; mo
               ))}
               {report === null &&
                 experiments.length > 0 && <li className="text-ink-faint">Run data (CSV) once the re-run has finished.</li>}
+              {data.supplements.map((f) => (
+                <li key={f.id}>
+                  <a className="text-tide hover:underline break-all" href={`/api/v1/files/${encodeURIComponent(f.id)}`} download>
+                    {f.originalName}
+                  </a>{" "}
+                  <span className="text-xs text-ink-faint">(supplement, {formatSize(f.size)})</span>
+                </li>
+              ))}
               <li>
                 <a className="text-tide hover:underline" href={`${base}/citation.bib`} download data-testid="bibtex-link">
                   Citation (BibTeX)

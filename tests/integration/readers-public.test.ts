@@ -8,6 +8,7 @@ type Handler = (req: Request, ctx: { params: Promise<Record<string, string>> }) 
 const specText = readFileSync("schemas/examples/meadow-foragers.json", "utf8");
 let publicSlug = "";
 let privateSlug = "";
+let publicOwner = "";
 const routes: Record<string, Handler> = {};
 
 beforeAll(async () => {
@@ -18,13 +19,11 @@ beforeAll(async () => {
   routes["citation.bib"] = (await import(`${base}/citation.bib/route`)).GET as Handler;
   routes["citation.txt"] = (await import(`${base}/citation.txt/route`)).GET as Handler;
   routes.csv = (await import(`${base}/experiments/[file]/route`)).GET as Handler;
-  publicSlug = (
-    await depositPublicModel([specText], {
-      title: "Meadow foragers: patch defence",
-      authors: [{ name: "Ada Example" }, { name: "Reef & Kelp Lab" }],
-      doi: "10.5555/meadow.2026_7",
-    })
-  ).slug;
+  ({ slug: publicSlug, ownerId: publicOwner } = await depositPublicModel([specText], {
+    title: "Meadow foragers: patch defence",
+    authors: [{ name: "Ada Example" }, { name: "Reef & Kelp Lab" }],
+    doi: "10.5555/meadow.2026_7",
+  }));
   privateSlug = (await depositPublicModel([specText], { title: "Hidden draft of the meadow model", visibility: "private" })).slug;
 }, 180_000);
 
@@ -139,6 +138,22 @@ describe("a private or unknown model is not found, the same way, on every public
     expect(model.latest).toBe(true);
     // An internal id must not open a public page either.
     await expect(loadPublicVersion(model.model.id)).rejects.toMatchObject({ status: 404 });
+  });
+
+  it("lists a public version's supplementary files, which anonymous readers can download", async () => {
+    const { loadPublicVersion } = await import("@/lib/registry");
+    const { attachSupplement } = await import("@/lib/files");
+    const before = await loadPublicVersion(publicSlug);
+    expect(before.supplements).toEqual([]);
+    const body = new Blob(["site,count\r\nnorth,12\r\n"]).stream();
+    await attachSupplement(before.version.id, { id: publicOwner, role: "author" }, { body, name: "field-counts.csv" });
+    const after = await loadPublicVersion(publicSlug);
+    expect(after.supplements.map((f) => [f.originalName, f.purpose])).toEqual([["field-counts.csv", "supplement"]]);
+    const { GET } = await import("@/app/api/v1/files/[id]/route");
+    const id = after.supplements[0]?.id ?? "";
+    const res = await GET(new Request(`http://localhost/api/v1/files/${id}`), { params: Promise.resolve({ id }) });
+    expect(res.status).toBe(200);
+    expect(await res.text()).toBe("site,count\r\nnorth,12\r\n");
   });
 
   it("the registry API and the sitemap list the public model only", async () => {
