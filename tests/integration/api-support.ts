@@ -2,10 +2,10 @@
  * Helpers for the deposit API tests: accounts with personal API tokens or browser sessions,
  * and requests built the way Next hands them to route handlers. Import ./deposit-env first.
  */
-import { eq } from "drizzle-orm";
 import { db } from "@/db/client";
-import { apiToken, user } from "@/db/schema";
+import { apiToken } from "@/db/schema";
 import { newApiToken } from "@/lib/token-hash";
+import { accountIn } from "./app-support";
 import { makeUser } from "./deposit-support";
 
 export const BASE = "http://localhost:3000";
@@ -27,20 +27,10 @@ export async function accountWithToken(name: string, role: "author" | "editor" |
   return { ...u, token: t.token, tokenId };
 }
 
-/** A browser session cookie for `email`, through better-auth's own sign-up and sign-in. */
+/** A browser session cookie, through better-auth's own sign-up and sign-in (the app frame's helper). */
 export async function sessionCookie(name: string): Promise<{ cookie: string; userId: string }> {
-  const { auth } = await import("@/lib/auth");
-  const email = `${name.toLowerCase()}-${crypto.randomUUID().slice(0, 8)}@example.test`;
-  const password = "correct horse battery staple 42";
-  await auth.api.signUpEmail({ body: { name, email, password } });
-  // Verification is by mail link; the tests mark the address verified directly.
-  await db.update(user).set({ emailVerified: true }).where(eq(user.email, email));
-  const res = await auth.api.signInEmail({ body: { email, password }, asResponse: true });
-  const cookies = res.headers.getSetCookie().map((c) => c.split(";")[0] ?? "");
-  const rows = await db.select({ id: user.id }).from(user).where(eq(user.email, email));
-  const userId = rows[0]?.id;
-  if (userId === undefined) throw new Error("sign-up made no user row");
-  return { cookie: cookies.join("; "), userId };
+  const { id, cookie } = await accountIn("author", name);
+  return { cookie, userId: id };
 }
 
 export interface Auth {
