@@ -122,7 +122,72 @@ export function singularFace(M: Float64Array, b: Float64Array, rows: number, col
     }
     if (ok) return { kind: "continuum", last: p[s] ?? 0 };
   }
-  return { kind: "undecided" };
+  const best = largestMinimumShare(p, moving, s);
+  if (best === null) return { kind: "undecided" };
+  return best > SHARE_TOLERANCE ? { kind: "continuum", last: p[s] ?? 0 } : { kind: "none" };
+}
+
+/** Vertex enumeration of the linear program below stops beyond this many candidate vertices. */
+const MAX_LP_VERTICES = 50_000;
+
+/**
+ * max tau subject to p_i + (Q t)_i >= tau for every share i: the largest smallest share on
+ * the solution set x = p + Q t. The feasible set is a pointed polyhedron (the shares sum to
+ * a constant, so B dt = dtau 1 forces dtau = 0 and, with B of full column rank, dt = 0) and
+ * tau is bounded by 1/s, so the optimum sits at a vertex: r + 1 active constraints, r the
+ * rank of Q's share part (Chvatal, Linear Programming, 1983, ch. 3). Every vertex is tried.
+ * Returns null when there are too many to try.
+ */
+function largestMinimumShare(p: Float64Array, moving: Float64Array[], s: number): number | null {
+  // Orthonormal basis of the span of the moving directions' shares (modified Gram-Schmidt).
+  const basis: Float64Array[] = [];
+  for (const q of moving) {
+    const v = q.slice(0, s);
+    const norm0 = Math.hypot(...v);
+    for (const b of basis) {
+      let dot = 0;
+      for (let i = 0; i < s; i++) dot += (v[i] as number) * (b[i] as number);
+      for (let i = 0; i < s; i++) v[i] = (v[i] as number) - dot * (b[i] as number);
+    }
+    const norm = Math.hypot(...v);
+    if (norm > 1e-10 * Math.max(1, norm0)) basis.push(v.map((x) => x / norm));
+  }
+  const r = basis.length;
+  const k = r + 1;
+  if (k > s) return null;
+  let count = 1;
+  for (let i = 0; i < k; i++) count = (count * (s - i)) / (i + 1);
+  if (count > MAX_LP_VERTICES) return null;
+  const J = Array.from({ length: k }, (_, i) => i);
+  const M = new Float64Array(k * k);
+  const rhs = new Float64Array(k);
+  let best = -Infinity;
+  for (;;) {
+    J.forEach((i, row) => {
+      for (let a = 0; a < r; a++) M[row * k + a] = (basis[a] as Float64Array)[i] as number;
+      M[row * k + r] = -1;
+      rhs[row] = -(p[i] as number);
+    });
+    if (solveInPlace(M, rhs, k, 1e-12)) {
+      const tau = rhs[r] as number;
+      if (tau > best) {
+        let feasible = true;
+        for (let i = 0; i < s && feasible; i++) {
+          let xi = p[i] as number;
+          for (let a = 0; a < r; a++) xi += (rhs[a] as number) * ((basis[a] as Float64Array)[i] as number);
+          if (xi - tau < -1e-10) feasible = false;
+        }
+        if (feasible) best = tau;
+      }
+    }
+    // next combination of k indices out of s
+    let i = k - 1;
+    while (i >= 0 && (J[i] as number) === s - k + i) i--;
+    if (i < 0) break;
+    J[i] = (J[i] as number) + 1;
+    for (let j = i + 1; j < k; j++) J[j] = (J[j - 1] as number) + 1;
+  }
+  return Number.isFinite(best) ? best : null;
 }
 
 /** Scratch buffers for square solves of faces (at most 25 x 25). */

@@ -255,7 +255,7 @@ describe("claims: decisions and the verdict", () => {
     expect(r.notes?.[0]).toMatch(/continuum of rest points on 2 faces; the list holds only the rest points that are the unique solution of their face, and one lying on the boundary of such a face may still belong to the continuum\./);
   });
 
-  it("a singular face the engine cannot resolve makes a count inconclusive, saying so", () => {
+  it("a plane of interior rest points away from the barycentre is found by the linear program", () => {
     // Strategies a, b, c earn 0 against everything; d earns x_a - x_b - 0.8. Interior rest points
     // form the plane x_a - x_b = 0.8, which meets the open simplex (e.g. at (0.85, 0.05, 0.05, 0.05))
     // although the point of the plane nearest the barycentre lies outside it.
@@ -263,8 +263,12 @@ describe("claims: decisions and the verdict", () => {
       { id: "interior", kind: "rest-point-count", count: 1, region: "interior" },
     ]));
     expect(claim(r, "interior").status).toBe("inconclusive");
-    expect(claim(r, "interior").message).toBe("A face of the state space (spanned by a, b, c, d) has a singular system whose rest points the engine could not resolve, so the count is not decided.");
-    expect(r.notes?.[0]).toMatch(/1 singular face could not be resolved\./);
+    expect(claim(r, "interior").message).toMatch(/^The replicator dynamics has a continuum of rest points \(on the face spanned by a, b, c, d\)/);
+    // with x_a - x_b = 1.2 the plane misses the simplex: no interior rest point at all
+    const none = verifySpec(spec({ kind: "symmetric", strategies: ["a", "b", "c", "d"], payoffs: [[0, 0, 0, 0], [0, 0, 0, 0], [0, 0, 0, 0], [-0.2, -2.2, -1.2, -1.2]] }, [
+      { id: "interior", kind: "rest-point-count", count: 0, region: "interior" },
+    ]));
+    expect(claim(none, "interior")).toMatchObject({ status: "confirmed", computed: { count: 0, region: "interior" } });
   });
 
   it("Nash and ESS claims with holds false, and states that are no rest point", () => {
