@@ -4,6 +4,7 @@ import { notFound } from "next/navigation";
 import { ModelForm } from "@/components/deposit/ModelForm";
 import { formValuesOf } from "@/components/deposit/model-form";
 import { SpecUpload } from "@/components/deposit/SpecUpload";
+import { DecisionsForVersion } from "@/components/editor/DecisionsForVersion";
 import { SubmitVersionButton } from "@/components/deposit/SubmitVersionButton";
 import { modelKey } from "@/components/deposit/keys";
 import { VersionList } from "@/components/deposit/VersionList";
@@ -112,6 +113,7 @@ export default async function ModelEntryPage({ params, searchParams }: Props) {
           />
         )}
         {model.venue !== null && latest === undefined && <p className="text-sm text-ink-soft">Upload a version first.</p>}
+        {submissions.length > 0 && <DecisionsForVersion modelId={model.id} />}
       </Section>
 
       <Section id="entry" title="The entry" description="Title, manuscript, authors, venue and visibility. Versions are not changed by this form.">

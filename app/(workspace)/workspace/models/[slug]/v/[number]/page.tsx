@@ -4,6 +4,8 @@ import { notFound } from "next/navigation";
 import { FileList } from "@/components/deposit/FileList";
 import { SupplementUpload } from "@/components/deposit/SupplementUpload";
 import { VersionStatus } from "@/components/deposit/VersionStatus";
+import { BadgeSnippets } from "@/components/badge/BadgeSnippets";
+import { DecisionsForVersion } from "@/components/editor/DecisionsForVersion";
 import { ReportView } from "@/components/report";
 import { PageHeader, Section } from "@/components/ui/PageHeader";
 import type { ModelSpec } from "@/lib/engine/types";
@@ -81,6 +83,14 @@ export default async function VersionPage({ params }: Props) {
         ) : (
           <ReportView report={report.report} game={spec?.game} specClaims={spec?.claims} />
         )}
+      </Section>
+
+      <Section id="decisions" title="Editors' decisions" description={model.venue === null ? "The model names no venue, so no editor decides on it." : `Decisions of the editors of ${model.venue.name} on this version.`}>
+        {model.venue !== null && <DecisionsForVersion modelId={model.id} versionNumber={version.number} />}
+      </Section>
+
+      <Section id="badge" title="Badge" description="An image that states what the re-run of this version found (and any decision), to put beside the paper or in a repository.">
+        <BadgeSnippets slug={model.slug} number={version.number} isPublic={model.visibility === "public"} revision={report?.verdict ?? version.job?.state ?? "pending"} />
       </Section>
 
       <Section id="files" title="Files" description="The specification as uploaded, and supplementary files attached to this version.">
