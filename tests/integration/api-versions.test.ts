@@ -50,14 +50,7 @@ function postSpec(slug: string, owner: TestAccount, text: string, contentType = 
   );
 }
 
-function multipart(field: string, name: string, content: BlobPart, type = "application/octet-stream"): { body: Uint8Array; type: string } {
-  const form = new FormData();
-  form.append("name", name); // Uppy sends metadata fields before the file
-  form.append(field, new Blob([content], { type }), name);
-  const r = new Request("http://x/", { method: "POST", body: form });
-  return { body: new Uint8Array(0), type: r.headers.get("content-type") ?? "", ...{ request: r } } as unknown as { body: Uint8Array; type: string };
-}
-
+/** A multipart request as Uppy sends it: its metadata fields first, then the file. */
 async function postMultipart(url: string, owner: TestAccount | null, field: string, name: string, content: BlobPart): Promise<Request> {
   const form = new FormData();
   form.append("name", name);
