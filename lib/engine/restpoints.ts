@@ -201,7 +201,7 @@ const SCRATCH_B = new Float64Array(26);
  * equations are checked against its unique solution, which settles most such faces without
  * the general rank-revealing solve.
  */
-function borderedFace(P: Float64Array, pCols: number, rowsIdx: number[], colsIdx: number[], tol: number): Face {
+function borderedFace(P: Float64Array, pCols: number, rowsIdx: number[], colsIdx: number[], tol: number, knownSingular = false): Face {
   const r = rowsIdx.length + 1;
   const c = colsIdx.length + 1;
   const entry = (a: number, bb: number): number => {
@@ -209,7 +209,7 @@ function borderedFace(P: Float64Array, pCols: number, rowsIdx: number[], colsIdx
     if (bb === c - 1) return -1;
     return P[(rowsIdx[a] as number) * pCols + (colsIdx[bb] as number)] as number;
   };
-  if (r >= c) {
+  if (r >= c && !(knownSingular && r === c)) {
     // Square subsystem: the first c - 1 equality rows and the sum row.
     const M2 = SCRATCH_M;
     const b2 = SCRATCH_B;
@@ -329,7 +329,7 @@ export function symmetricRestPoints(A: Float64Array, n: number, budget?: Budget)
       return;
     }
     const sup = Array.from(idx.subarray(0, s));
-    const face = borderedFace(A, n, sup, sup, tol);
+    const face = borderedFace(A, n, sup, sup, tol, true); // the pivoted solve above found it singular
     if (face.kind === "point") {
       const state = new Float64Array(n);
       sup.forEach((i, a) => {
