@@ -91,6 +91,11 @@ describe("firstFilePart", () => {
     await expect(readAll(part.stream)).rejects.toThrow(TRUNCATED_MESSAGE);
   });
 
+  it("refuses a part whose headers run on without end", async () => {
+    const body = new TextEncoder().encode(`--b\r\nContent-Disposition: form-data; name="file"; filename="x.txt"\r\nX-Pad: ${"p".repeat(9000)}`);
+    await expect(firstFilePart(rechunk(body, 1024), "multipart/form-data; boundary=b")).rejects.toThrow("A part's headers are too long.");
+  });
+
   it("refuses oversized fields before the file", async () => {
     const form = new FormData();
     form.append("padding", "p".repeat(70 * 1024));
