@@ -76,3 +76,25 @@ describe("user-supplied text on the public pages", () => {
     expect(html).toContain("&lt;a href=&quot;javascript:alert(1)&quot;&gt;click&lt;/a&gt;");
   });
 });
+
+describe("registry paging links and page metadata", () => {
+  it("keep the search in the links to other pages and leave defaults out", async () => {
+    const { parseRegistryQuery } = await import("@/lib/registry");
+    const { pageHref } = await import("@/components/public/RegistryResults");
+    const q = parseRegistryQuery({ q: "heron nests", dynamics: "logit", verdict: "pending", sort: "title", pageSize: "10", page: "2" });
+    expect(pageHref(q, 3)).toBe("/models?q=heron+nests&dynamics=logit&verdict=pending&sort=title&pageSize=10&page=3");
+    expect(pageHref(parseRegistryQuery({}), 1)).toBe("/models");
+  });
+
+  it("give a version page its title, description, canonical address and Open Graph fields", async () => {
+    const { loadPublicVersion } = await import("@/lib/registry");
+    const { versionMetadata } = await import("@/app/(public)/models/[slug]/load");
+    const data = await loadPublicVersion(slug);
+    const m = versionMetadata(data);
+    expect(m.title).toBe(`Nest raids ${HOSTILE}`);
+    expect(m.description).toMatch(/^<a href="javascript:alert\(1\)">click<\/a> Version 1 by <svg onload=alert\(1\)>, re-run verdict: \w+\. Strategies: <b>Raider<\/b>, Guard & Co, /);
+    expect(m.alternates?.canonical).toBe(`http://localhost:3000/models/${slug}`);
+    expect(m.openGraph).toMatchObject({ type: "article", title: `Nest raids ${HOSTILE}`, url: `http://localhost:3000/models/${slug}`, siteName: "Restpoint" });
+  });
+});
+
