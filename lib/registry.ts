@@ -108,7 +108,7 @@ function contains(s: string): string {
   return `%${s.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
 }
 
-/** Strategy names are stored joined by newlines (see splitStrategyNames). */
+/** The version column holds the strategy names joined by newlines (as lib/versions.ts writes it). */
 export function splitStrategyNames(stored: string): string[] {
   return stored
     .split(/\n/)
