@@ -1,6 +1,9 @@
 import type { NextConfig } from "next";
 
 const nextConfig: NextConfig = {
+  // Lets several builds coexist in one checkout (e.g. a developer's dev server beside the e2e build).
+  // Config files are read by Next before the app's own modules load, so this one reads the variable directly.
+  distDir: process.env.NEXT_DIST_DIR ?? ".next",
   // The engine's integrator ships TypeScript source only; point the bundler at its compiled file.
   turbopack: { resolveAlias: { odex: "./node_modules/odex/src/odex.js" } },
   serverExternalPackages: ["@libsql/client", "libsql", "smtp-server", "nodemailer"],

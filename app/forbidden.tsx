@@ -1,10 +1,10 @@
-import { Shell } from "@/components/layout/Shell";
+import { Narrow } from "@/components/layout/Shell";
 import { LockIcon } from "@/components/status/icons";
 import { ButtonLink } from "@/components/ui/Button";
 
 export default function Forbidden() {
   return (
-    <Shell width="narrow">
+    <Narrow>
       <div className="flex flex-col items-start gap-4" data-testid="status-403">
         <p className="inline-flex items-center gap-2 text-sm font-semibold text-ochre">
           <LockIcon /> Not for your role
@@ -15,6 +15,6 @@ export default function Forbidden() {
           Back to your workspace
         </ButtonLink>
       </div>
-    </Shell>
+    </Narrow>
   );
 }

@@ -1,5 +1,6 @@
 import type { Metadata, Viewport } from "next";
 import localFont from "next/font/local";
+import { Shell } from "@/components/layout/Shell";
 import "./globals.css";
 
 // Atkinson Hyperlegible Next and Mono (SIL OFL 1.1, licences beside the files), shipped with the app.
@@ -32,7 +33,9 @@ export const viewport: Viewport = {
 export default function RootLayout({ children }: { children: React.ReactNode }) {
   return (
     <html lang="en" className={`${sans.variable} ${mono.variable}`}>
-      <body className="flex min-h-dvh flex-col bg-canvas text-ink antialiased">{children}</body>
+      <body className="flex min-h-dvh flex-col bg-canvas text-ink antialiased">
+        <Shell>{children}</Shell>
+      </body>
     </html>
   );
 }

@@ -1,9 +1,9 @@
-import { Shell } from "@/components/layout/Shell";
+import { Narrow } from "@/components/layout/Shell";
 import { ButtonLink } from "@/components/ui/Button";
 
 export default function NotFound() {
   return (
-    <Shell width="narrow">
+    <Narrow>
       <div className="flex flex-col items-start gap-4" data-testid="status-404">
         <p className="font-mono text-sm text-ochre">404</p>
         <h1 className="text-2xl font-bold">There is nothing at this address</h1>
@@ -12,6 +12,6 @@ export default function NotFound() {
           Go to the home page
         </ButtonLink>
       </div>
-    </Shell>
+    </Narrow>
   );
 }

@@ -1,11 +1,11 @@
 import Link from "next/link";
-import { Shell } from "@/components/layout/Shell";
+import { Narrow } from "@/components/layout/Shell";
 import { SignInLink } from "@/components/layout/SignInLink";
 import { LockIcon } from "@/components/status/icons";
 
 export default function Unauthorized() {
   return (
-    <Shell width="narrow">
+    <Narrow>
       <div className="flex flex-col items-start gap-4" data-testid="status-401">
         <p className="inline-flex items-center gap-2 text-sm font-semibold text-ochre">
           <LockIcon /> Sign-in needed
@@ -20,6 +20,6 @@ export default function Unauthorized() {
         </p>
         <SignInLink />
       </div>
-    </Shell>
+    </Narrow>
   );
 }

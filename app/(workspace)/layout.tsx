@@ -1,5 +1,4 @@
 import { AreaNav, WORKSPACE_NAV } from "@/components/layout/AreaNav";
-import { Shell } from "@/components/layout/Shell";
 import { pageUser } from "@/lib/authz";
 
 // The check here gives the right status (401) before anything streams; each page checks again
@@ -7,11 +6,9 @@ import { pageUser } from "@/lib/authz";
 export default async function WorkspaceLayout({ children }: { children: React.ReactNode }) {
   const me = await pageUser();
   return (
-    <Shell>
-      <div className="flex flex-col gap-8 md:flex-row">
-        <AreaNav title="Workspace" entries={WORKSPACE_NAV} role={me.role} />
-        <div className="min-w-0 flex-1">{children}</div>
-      </div>
-    </Shell>
+    <div className="flex flex-col gap-8 md:flex-row">
+      <AreaNav title="Workspace" entries={WORKSPACE_NAV} role={me.role} />
+      <div className="min-w-0 flex-1">{children}</div>
+    </div>
   );
 }

@@ -23,13 +23,13 @@ export async function SiteHeader() {
         <Link href="/" className="rounded-[var(--radius-control)]" aria-label="Restpoint home">
           <Wordmark />
         </Link>
-        <nav aria-label="Main" className="flex flex-1 flex-wrap items-center gap-1">
+        <nav aria-label="Main" className="order-last -mx-2.5 flex w-full flex-wrap items-center gap-1 sm:order-none sm:mx-0 sm:w-auto sm:flex-1">
           <NavLink href="/models">Models</NavLink>
           {actor === null ? null : <NavLink href="/workspace">Workspace</NavLink>}
           {hasRole(actor, "admin") ? <NavLink href="/admin">Administration</NavLink> : null}
           {actor !== null && env.useFakeSmtp ? <NavLink href="/dev/mail">Captured mail</NavLink> : null}
         </nav>
-        <div className="flex items-center gap-2">
+        <div className="ml-auto flex items-center gap-2">
           {actor === null ? (
             <>
               <Link href="/sign-in" className="rounded-[var(--radius-control)] px-3 py-1.5 text-sm font-semibold text-tide hover:bg-tide-wash">

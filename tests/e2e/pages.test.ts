@@ -78,6 +78,9 @@ describe.each(["light", "dark"] as const)("%s mode", (scheme) => {
     page.off("console", onConsole);
     expect(res?.status()).toBe(status);
     expect(errors).toEqual([]);
+    // One frame per page: status pages rendered inside a layout must not bring a second one.
+    expect(await page.locator("main").count()).toBe(1);
+    expect(await page.getByRole("banner").count()).toBe(1);
     const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
     expect(overflow).toBeLessThanOrEqual(0);
     await screenshot(page, `pages/${name}-${scheme}`);

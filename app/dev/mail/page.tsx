@@ -6,7 +6,6 @@
 import type { Metadata } from "next";
 import { cookies } from "next/headers";
 import { notFound, unauthorized } from "next/navigation";
-import { Shell } from "@/components/layout/Shell";
 import { CapturedMailView } from "@/components/mail/CapturedMailView";
 import { Notice } from "@/components/ui/Notice";
 import { PageHeader } from "@/components/ui/PageHeader";
@@ -28,8 +27,7 @@ export default async function DevMailPage({ searchParams }: { searchParams: Prom
   // A visitor who is not signed in may open only the messages listed for them.
   const selected = requested !== null && mails.some((m) => m.id === requested.id) ? requested : null;
   return (
-    <Shell>
-      <div className="flex flex-col gap-6">
+    <div className="flex flex-col gap-6">
         <PageHeader
           overline="Development"
           title="Captured mail"
@@ -41,7 +39,6 @@ export default async function DevMailPage({ searchParams }: { searchParams: Prom
           </Notice>
         )}
         <CapturedMailView mails={mails} selected={selected} basePath="/dev/mail" emptyText="Nothing has been sent yet. A sign-up or a password reset sends a message." />
-      </div>
-    </Shell>
+    </div>
   );
 }

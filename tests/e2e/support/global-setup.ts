@@ -18,8 +18,7 @@ export default async function setup(project: TestProject): Promise<() => Promise
         "`apt-get update && apt-get install -y chromium` (or set CHROMIUM_PATH). The tests are not skipped.",
     );
   }
-  ensureBuild(process.env);
-  app = await startApp();
+  app = await startApp(ensureBuild(process.env));
   project.provide("e2e", { baseUrl: app.baseUrl, databaseFile: app.databaseFile });
   return async () => {
     await app?.stop();

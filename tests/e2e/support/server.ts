@@ -45,7 +45,8 @@ async function waitUntilUp(url: string, child: ChildProcess, log: () => string, 
   throw new Error(`the app did not answer at ${url} within ${timeoutMs} ms:\n${log()}`);
 }
 
-export async function startApp(extraEnv: Record<string, string> = {}): Promise<RunningApp> {
+/** `distDir`: the build folder from ensureBuild(). */
+export async function startApp(distDir: string, extraEnv: Record<string, string> = {}): Promise<RunningApp> {
   const port = await freePort();
   const baseUrl = `http://127.0.0.1:${port}`;
   const dataDir = mkdtempSync(path.join(os.tmpdir(), "restpoint-e2e-"));
@@ -55,6 +56,7 @@ export async function startApp(extraEnv: Record<string, string> = {}): Promise<R
     HOME: process.env.HOME,
     NODE_ENV: "production",
     NEXT_TELEMETRY_DISABLED: "1",
+    NEXT_DIST_DIR: distDir,
     DATA_DIR: dataDir,
     DATABASE_URL: `file:${databaseFile}`,
     UPLOADS_DIR: path.join(dataDir, "uploads"),
