@@ -245,6 +245,8 @@ async function main(): Promise<void> {
         BETTER_AUTH_URL: base,
       },
       stdio: ["ignore", "pipe", "pipe"],
+      // Its own process group, so the next-server child that `next start` forks is stopped with it.
+      detached: true,
     });
     server.stdout?.on("data", (d: Buffer) => (log += d.toString()));
     server.stderr?.on("data", (d: Buffer) => (log += d.toString()));
@@ -303,7 +305,13 @@ async function main(): Promise<void> {
     print(rows);
     console.log(`\nTotal ${((Date.now() - started) / 1000).toFixed(0)} s.`);
   } finally {
-    server?.kill("SIGTERM");
+    if (server?.pid !== undefined && server.exitCode === null) {
+      try {
+        process.kill(-server.pid, "SIGTERM");
+      } catch {
+        server.kill("SIGTERM");
+      }
+    }
     await new Promise((r) => setTimeout(r, 500));
     rmSync(dataDir, { recursive: true, force: true });
   }
