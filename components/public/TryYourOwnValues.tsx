@@ -95,6 +95,10 @@ export function TryYourOwnValues({ specText }: { specText: string }) {
   const [general, setGeneral] = useState<string[]>([]);
   const [phase, setPhase] = useState<Phase>({ kind: "idle" });
   const resultRef = useRef<HTMLDivElement>(null);
+  const formRef = useRef<HTMLFormElement>(null);
+  /** Moves the keyboard to the first field that needs attention, after React has marked it. */
+  const focusFirstProblem = () =>
+    requestAnimationFrame(() => formRef.current?.querySelector<HTMLElement>('[aria-invalid="true"]')?.focus());
   const groups = groupNames(original);
   const plotGame = plotGameOfSpec(original);
   const paramNames = Object.keys(fields.parameters).sort();
@@ -155,6 +159,7 @@ export function TryYourOwnValues({ specText }: { specText: string }) {
     if ("problems" in c) {
       place(c.problems);
       setPhase({ kind: "idle" });
+      focusFirstProblem();
       return;
     }
     // The same validation the server runs, loaded only when a reader first uses the form.
@@ -163,6 +168,7 @@ export function TryYourOwnValues({ specText }: { specText: string }) {
     place(problems);
     if (problems.length > 0) {
       setPhase({ kind: "idle" });
+      focusFirstProblem();
       return;
     }
     setPhase({ kind: "running" });
@@ -219,7 +225,7 @@ export function TryYourOwnValues({ specText }: { specText: string }) {
 
   return (
     <div className="flex flex-col gap-6" data-testid="try-values">
-      <form onSubmit={onSubmit} noValidate className="rp-card flex flex-col gap-5 p-4 sm:p-5">
+      <form ref={formRef} onSubmit={onSubmit} noValidate className="rp-card flex flex-col gap-5 p-4 sm:p-5">
         {paramNames.length > 0 && (
           <fieldset className="flex flex-col gap-3">
             <legend className="mb-2 text-sm font-semibold">Parameters</legend>
@@ -302,7 +308,8 @@ export function TryYourOwnValues({ specText }: { specText: string }) {
                                   initial: x.initial.map((pop, q) => (q === p ? pop.map((v, k) => (k === j ? ev.target.value : v)) : pop)),
                                 }))
                               }
-                              aria-invalid={err(key) ? true : undefined}
+                              aria-invalid={err(key) || err(popKey) ? true : undefined}
+                              aria-describedby={err(popKey) ? `try-${i}-${p}-sum` : undefined}
                               className={inputClass}
                             />
                             {err(key) && <p className="text-xs text-danger">{err(key)?.join(" ")}</p>}
@@ -312,7 +319,7 @@ export function TryYourOwnValues({ specText }: { specText: string }) {
                     </div>
                     {err(popKey) && (
                       <div className="flex flex-wrap items-center gap-3">
-                        <p className="text-xs text-danger" role="alert">
+                        <p id={`try-${i}-${p}-sum`} className="text-xs text-danger" role="alert">
                           {err(popKey)?.join(" ")}
                         </p>
                         <button type="button" className="text-xs font-semibold text-tide hover:underline" onClick={() => normalise(i, p)}>
