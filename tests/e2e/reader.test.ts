@@ -81,6 +81,8 @@ describe("a reader without an account", () => {
     await page.locator("#try-0-0-0").fill("0.5");
     await page.getByRole("button", { name: "Re-run with these values" }).click();
     await expect.poll(() => page.getByTestId("try-values").innerText()).toContain("they sum to 1.45");
+    // The keyboard lands on the first share of the group that needs attention.
+    await expect.poll(() => page.evaluate(() => document.activeElement?.id)).toBe("try-0-0-0");
     await page.getByRole("button", { name: "Scale these shares to sum to 1" }).click();
     expect(await page.locator("#try-0-0-0").inputValue()).toBe("0.344827586207");
 
