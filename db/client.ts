@@ -29,12 +29,25 @@ function connection() {
   return globalForDb.__restpointDb;
 }
 
-/** Drizzle over the process's one libSQL client (opened on first use). */
+// An embedded libSQL file gives each transaction its own connection and waits for a busy
+// database synchronously, so two transactions of one process would block each other until
+// the busy timeout. Transactions of this process therefore run one after another.
+let transactionQueue: Promise<unknown> = Promise.resolve();
+function oneAtATime<T>(run: () => Promise<T>): Promise<T> {
+  const result = transactionQueue.then(run, run);
+  transactionQueue = result.catch(() => undefined);
+  return result;
+}
+
+/** Drizzle over the process's one libSQL client (opened on first use); `db.transaction` is serialised per process. */
 export const db: Database = new Proxy({} as Database, {
   get(_target, prop) {
     const real = connection().db as unknown as Record<PropertyKey, unknown>;
     const value = real[prop];
-    return typeof value === "function" ? (value as (...a: unknown[]) => unknown).bind(real) : value;
+    if (typeof value !== "function") return value;
+    const bound = (value as (...a: unknown[]) => unknown).bind(real);
+    if (prop !== "transaction") return bound;
+    return (...args: unknown[]) => oneAtATime(() => bound(...args) as Promise<unknown>);
   },
 });
 
