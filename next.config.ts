@@ -11,7 +11,9 @@ const nextConfig: NextConfig = {
   // forbidden() / unauthorized() give pages real 403 / 401 answers (lib/authz.ts page helpers).
   experimental: { authInterrupts: true },
   // Type checking is its own step (`npm run typecheck`); the build must not wait on it twice.
-  typescript: { ignoreBuildErrors: true },
+  // Browser-test builds use their own tsconfig (tests/e2e/support/build.ts) because Next writes its
+  // dist folder's type paths into the tsconfig it builds with.
+  typescript: { ignoreBuildErrors: true, tsconfigPath: process.env.NEXT_TSCONFIG_PATH ?? "tsconfig.json" },
 };
 
 export default nextConfig;

@@ -10,7 +10,7 @@
  */
 import { execFileSync } from "node:child_process";
 import { createHash } from "node:crypto";
-import { existsSync, readdirSync, rmSync, statSync } from "node:fs";
+import { existsSync, readdirSync, rmSync, statSync, writeFileSync } from "node:fs";
 import path from "node:path";
 
 export const ROOT = path.resolve(import.meta.dirname, "../../..");
@@ -19,6 +19,17 @@ const SOURCE_FILES = ["next.config.ts", "instrumentation.ts", "postcss.config.mj
 const LOCK = "/tmp/restpoint-build.lock";
 const PREFIX = ".next-e2e-";
 const KEEP = 3;
+/** Next writes its dist folder's type paths into the tsconfig it builds with: give it a git-ignored one. */
+export const E2E_TSCONFIG = "tsconfig.e2e.json";
+
+function writeE2eTsconfig(): void {
+  const config = {
+    extends: "./tsconfig.json",
+    include: ["next-env.d.ts", "**/*.ts", "**/*.tsx"],
+    exclude: ["node_modules", "data", "uploads", ".next", ".next-*"],
+  };
+  writeFileSync(path.join(ROOT, E2E_TSCONFIG), `${JSON.stringify(config, null, 2)}\n`);
+}
 
 function walk(dir: string, out: string[]): void {
   if (!existsSync(dir)) return;
@@ -59,12 +70,13 @@ export function ensureBuild(env: NodeJS.ProcessEnv): string {
   const distDir = `${PREFIX}${sourceFingerprint()}`;
   if (existsSync(path.join(ROOT, distDir, "BUILD_ID"))) return distDir;
   const started = Date.now();
+  writeE2eTsconfig();
   // Inside the lock, look again: another run may have built the same sources meanwhile.
   const script = `[ -f "${distDir}/BUILD_ID" ] && exit 0; rm -rf "${distDir}"; node node_modules/next/dist/bin/next build`;
   try {
     execFileSync("flock", [LOCK, "sh", "-c", script], {
       cwd: ROOT,
-      env: { ...env, NEXT_DIST_DIR: distDir, NEXT_TELEMETRY_DISABLED: "1", NODE_ENV: "production" },
+      env: { ...env, NEXT_DIST_DIR: distDir, NEXT_TSCONFIG_PATH: E2E_TSCONFIG, NEXT_TELEMETRY_DISABLED: "1", NODE_ENV: "production" },
       stdio: ["ignore", "pipe", "pipe"],
     });
   } catch (e) {
