@@ -13,6 +13,8 @@ let meadow = "";
 let market = "";
 let hidden = "";
 
+// The running app's own worker re-runs what is deposited here, as it would for an author.
+const APP_WORKER = { worker: "app" } as const;
 const meadowSpec = readFileSync("schemas/examples/meadow-foragers.json", "utf8");
 const marketSpec = readFileSync("tests/integration/readers-market.json", "utf8");
 
@@ -26,11 +28,13 @@ beforeAll(async () => {
       summary: "Three tactics over nectar patches; a fictional bumble forager.",
       authors: [{ name: "Ada Example", orcid: "0000-0002-1825-0097" }, { name: "Reef & Kelp Lab" }],
       doi: "10.5555/meadow.2026_7",
-    })
+    }, APP_WORKER)
   ).slug;
-  market = (await depositPublicModel([marketSpec], { title: "Harbour inspections", authors: [{ name: "Ola Nordmann" }] })).slug;
+  market = (await depositPublicModel([marketSpec], { title: "Harbour inspections", authors: [{ name: "Ola Nordmann" }] }, APP_WORKER)).slug;
   // Private, and with the same strategy names: it must never show up.
-  hidden = (await depositPublicModel([meadowSpec.replace("Territory holding", "Secret territory holding")], { title: "Secret meadow draft", visibility: "private" })).slug;
+  hidden = (
+    await depositPublicModel([meadowSpec.replace("Territory holding", "Secret territory holding")], { title: "Secret meadow draft", visibility: "private" }, APP_WORKER)
+  ).slug;
   b = await openBrowser();
 }, 300_000);
 

@@ -65,50 +65,71 @@ export async function seedModel(ownerId: string, m: SeedModel): Promise<string> 
   return modelId;
 }
 
+function isBusy(e: unknown): boolean {
+  for (let x: unknown = e; x !== undefined && x !== null; x = (x as { cause?: unknown }).cause) {
+    const text = `${(x as { code?: unknown }).code ?? ""} ${x instanceof Error ? x.message : ""}`;
+    if (/SQLITE_BUSY|database is locked/.test(text)) return true;
+  }
+  return false;
+}
+
+/** Another process (a running app) may hold the write lock for a moment: wait and try again. */
+async function whenFree<T>(run: () => Promise<T>): Promise<T> {
+  for (let attempt = 0; ; attempt++) {
+    try {
+      return await run();
+    } catch (e) {
+      if (attempt >= 100 || !isBusy(e)) throw e;
+      await new Promise((r) => setTimeout(r, 50 + Math.random() * 100));
+    }
+  }
+}
+
 /**
  * A public model deposited the way an author does it (lib/models.ts, lib/versions.ts) and
- * re-run by the verification worker with the engine in-process, so its report is the
- * server's own. Returns the model's slug once every version has its report.
+ * re-run by the verification worker, so its report is the server's own. `worker: "own"` (the
+ * default) runs a worker here with the engine in-process; `"app"` leaves the jobs to a running
+ * app's worker (same database). Returns the model's slug once every version has its report.
  */
 export async function depositPublicModel(
   specTexts: string[],
   fields: { title: string; summary?: string; authors?: { name: string; orcid?: string }[]; doi?: string; visibility?: "public" | "private" },
+  options: { worker?: "own" | "app" } = {},
 ): Promise<{ slug: string; ownerId: string }> {
   const { createModel } = await import("@/lib/models");
   const { addVersion } = await import("@/lib/versions");
   const { readReport } = await import("@/lib/reports");
   const { VerificationWorker } = await import("@/lib/worker/loop");
   const { verifySpecText } = await import("@/lib/engine/verify");
-  const ownerId = await seedUser();
+  const ownerId = await whenFree(seedUser);
   const owner = { id: ownerId, role: "author" };
-  const model = await createModel(owner, {
+  const model = await whenFree(() => createModel(owner, {
     title: fields.title,
     summary: fields.summary ?? "",
     authors: fields.authors ?? [],
     doi: fields.doi ?? null,
     visibility: fields.visibility ?? "public",
-  });
+  }));
   const versionIds: string[] = [];
   for (const text of specTexts) {
-    const added = await addVersion(model.slug, text, owner);
+    const added = await whenFree(() => addVersion(model.slug, text, owner));
     versionIds.push(added.version.id);
   }
-  const worker = new VerificationWorker({
-    pollMs: 50,
-    runner: async ({ specText }) => verifySpecText(specText),
-    log: () => {},
-  });
-  worker.start();
+  const worker =
+    (options.worker ?? "own") === "own"
+      ? new VerificationWorker({ pollMs: 50, runner: async ({ specText }) => verifySpecText(specText), log: () => {} })
+      : null;
+  worker?.start();
   try {
     const deadline = Date.now() + 120_000;
     for (const id of versionIds) {
-      while ((await readReport(id)) === null) {
+      while ((await whenFree(() => readReport(id))) === null) {
         if (Date.now() > deadline) throw new Error(`no report for version ${id} within 120 s`);
         await new Promise((r) => setTimeout(r, 50));
       }
     }
   } finally {
-    await worker.stop();
+    await worker?.stop();
   }
   return { slug: model.slug, ownerId };
 }
