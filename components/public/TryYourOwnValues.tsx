@@ -330,6 +330,11 @@ export function TryYourOwnValues({ specText }: { specText: string }) {
                   </div>
                 );
               })}
+              {groups.length === 2 && err(gKey) && (
+                <p className="text-xs text-danger" role="alert">
+                  {err(gKey)?.join(" ")}
+                </p>
+              )}
             </fieldset>
           );
         })}
