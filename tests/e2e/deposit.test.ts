@@ -291,3 +291,22 @@ describe("a script with an API token", () => {
     await screenshot(page, "deposit-token-revoked");
   });
 });
+
+describe("an upload that never reaches the server", () => {
+  it("says so beside the widget, and the model stays without a version", async () => {
+    const page = await b.page();
+    await signIn(page, "author");
+    await page.goto("/workspace/models/new");
+    await page.getByLabel("Title", { exact: true }).fill("Upload on a broken line");
+    await page.getByRole("button", { name: "Create the model entry" }).click();
+    await page.waitForURL(/\/workspace\/models\/rp-[a-z0-9]+\?created=1$/);
+    await page.route("**/api/v1/models/*/versions", (route) => route.abort("connectionreset"));
+    await dropFile(page, "spec-upload", "meadow.json", exampleText, "application/json");
+    await page
+      .getByTestId("spec-upload-result")
+      .getByText("The upload did not reach the server. Check the connection and try again.")
+      .waitFor();
+    await expect(page.getByText("No version yet. Upload the model’s specification to make v1.").count()).resolves.toBe(1);
+    await screenshot(page, "deposit-upload-network-error");
+  });
+});
