@@ -108,6 +108,28 @@ describe("a reader without an account", () => {
     expect(bib).toContain(`specification SHA-256 ${report.specSha256}`);
   });
 
+  it("re-runs a two-population model, checking each population's starting shares", async () => {
+    const page = await b.page();
+    await page.goto(`/models/${market}`);
+    await page.getByTestId("registered-figures").waitFor();
+    // Traders' shares (second population) that do not sum to 1 are refused in the browser.
+    await page.locator("#try-0-1-0").fill("0.5");
+    await page.getByRole("button", { name: "Re-run with these values" }).click();
+    await expect.poll(() => page.locator("#try-0-1-sum").innerText()).toContain("sum to 1");
+    expect(await page.locator("#try-0-0-0").getAttribute("aria-invalid")).toBeNull();
+    await page.getByRole("button", { name: "Scale these shares to sum to 1" }).click();
+    await page.getByTestId("param-fine").fill("4");
+    await page.getByRole("button", { name: "Re-run with these values" }).click();
+    const own = page.getByTestId("own-results");
+    await own.waitFor({ timeout: 30_000 });
+    expect(await page.getByTestId("own-changes").innerText()).toContain("fine = 4 (registered: 2)");
+    // Interior rest point where each population is indifferent (solved by hand): traders 1 = 3 - 7 x, so
+    // Inspect share x = 2/7; inspectors -y + 4 (1 - y) = -3 (1 - y), so Honest share y = 7/8.
+    const table = await own.getByRole("table").last().innerText();
+    expect(table).toContain("(0.2857, 0.7143)");
+    expect(table).toContain("(0.875, 0.125)");
+  });
+
   it("gets the same 404 for a private model as for one that does not exist", async () => {
     const page = await b.page();
     const priv = await page.goto(`/models/${hidden}`);
