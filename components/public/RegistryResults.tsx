@@ -23,11 +23,14 @@ export function pageHref(query: RegistryQuery, page: number): string {
 export function RegistryResults({ result }: { result: RegistryPage }) {
   const { entries, total, page, pageCount, query } = result;
   const first = (page - 1) * result.pageSize + 1;
+  const searching = (["q", "title", "author", "doi", "strategy", "dynamics", "verdict"] as const).some((k) => query[k] !== undefined);
   return (
     <div className="flex flex-col gap-4">
       <p className="text-sm text-ink-soft" role="status" data-testid="registry-count">
         {total === 0
-          ? "No public model matches this search."
+          ? searching
+            ? "No public model matches this search."
+            : "There are no public models yet."
           : entries.length === 0
             ? `Page ${page} is past the end: ${total} ${total === 1 ? "model matches" : "models match"}.`
             : `${total} ${total === 1 ? "model" : "models"}; showing ${first}–${first + entries.length - 1}.`}

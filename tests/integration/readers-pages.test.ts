@@ -86,6 +86,14 @@ describe("registry paging links and page metadata", () => {
     expect(pageHref(parseRegistryQuery({}), 1)).toBe("/models");
   });
 
+  it("say whether a search found nothing or the registry is empty", async () => {
+    const { parseRegistryQuery } = await import("@/lib/registry");
+    const { RegistryResults } = await import("@/components/public/RegistryResults");
+    const empty = (q: Record<string, string>) => ({ query: parseRegistryQuery(q), entries: [], total: 0, page: 1, pageSize: 20, pageCount: 1 });
+    expect(renderToStaticMarkup(createElement(RegistryResults, { result: empty({ q: "zzz" }) }))).toContain("No public model matches this search.");
+    expect(renderToStaticMarkup(createElement(RegistryResults, { result: empty({}) }))).toContain("There are no public models yet.");
+  });
+
   it("give a version page its title, description, canonical address and Open Graph fields", async () => {
     const { loadPublicVersion } = await import("@/lib/registry");
     const { versionMetadata } = await import("@/app/(public)/models/[slug]/load");
