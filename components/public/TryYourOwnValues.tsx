@@ -225,7 +225,12 @@ export function TryYourOwnValues({ specText }: { specText: string }) {
 
   return (
     <div className="flex flex-col gap-6" data-testid="try-values">
-      <form ref={formRef} onSubmit={onSubmit} noValidate className="rp-card flex flex-col gap-5 p-4 sm:p-5">
+      <form
+        ref={formRef}
+        onSubmit={onSubmit}
+        // Start loading the validation code as soon as the reader starts editing.
+        onFocusCapture={() => void import("@/lib/engine/validate")}
+        noValidate className="rp-card flex flex-col gap-5 p-4 sm:p-5">
         {paramNames.length > 0 && (
           <fieldset className="flex flex-col gap-3">
             <legend className="mb-2 text-sm font-semibold">Parameters</legend>
