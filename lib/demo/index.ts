@@ -13,6 +13,7 @@ import { user, type Role } from "@/db/schema";
 import { auth } from "@/lib/auth";
 import { addEditor, upsertVenue, type Venue } from "@/lib/venues";
 import { DEMO_ACCOUNTS, DEMO_VENUE } from "./accounts";
+import { seedDemoModels } from "./models";
 
 export interface DemoContext {
   /** Demo user ids by role. */
@@ -57,6 +58,7 @@ async function seedVenue(ctx: DemoContext): Promise<void> {
 export const DEMO_STEPS: DemoStep[] = [
   { name: "accounts", run: seedAccounts },
   { name: "venue", run: seedVenue },
+  { name: "models", run: seedDemoModels },
 ];
 
 export async function seedDemo(log: (line: string) => void = () => {}): Promise<DemoContext> {

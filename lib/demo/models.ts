@@ -12,6 +12,7 @@ import { db } from "@/db/client";
 import { model } from "@/db/schema";
 import { createModel } from "@/lib/models";
 import type { ModelInput } from "@/lib/types/deposit";
+import { submitVersion } from "@/lib/venues";
 import { addVersion } from "@/lib/versions";
 import type { DemoContext } from "./index";
 
@@ -167,6 +168,11 @@ export async function seedDemoModels(ctx: DemoContext): Promise<void> {
     const modelId =
       existing?.id ?? (await createModel(author, { ...demo.entry, venueId: demo.toVenue ? (ctx.venue?.id ?? null) : null })).id;
     // addVersion answers "identical" for a spec already deposited, so this is idempotent.
-    for (const spec of demo.specs) await addVersion(modelId, `${JSON.stringify(spec, null, 2)}\n`, author, { fileName: "spec.json" });
+    for (const spec of demo.specs) {
+      const added = await addVersion(modelId, `${JSON.stringify(spec, null, 2)}\n`, author, { fileName: "spec.json" });
+      // Put each version before the demo venue, so the demo editor's queue has work in it
+      // (submitVersion answers "existing" for one already submitted: idempotent too).
+      if (demo.toVenue) await submitVersion(author, { model: modelId, number: added.version.number });
+    }
   }
 }
