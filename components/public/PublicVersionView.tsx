@@ -5,6 +5,7 @@
  */
 import Link from "next/link";
 import { BadgeSnippets } from "@/components/badge/BadgeSnippets";
+import { CopyButton } from "@/components/badge/CopyButton";
 import { ReportView } from "@/components/report";
 import { VerdictTag } from "@/components/status/VerdictTag";
 import { Notice } from "@/components/ui/Notice";
@@ -56,6 +57,8 @@ export function PublicVersionView({ data, modelPage }: { data: PublicVersion; mo
   const { model, version, readable, report } = data;
   const base = versionPath(model.slug, version.number);
   const citation = citationOf(data);
+  const plainCitation = toPlainText(citation).trim();
+  const bibtex = toBibtex(citation);
   const manuscriptHref = safeHref(model.url);
   const game = readable?.game;
   const spec = readable?.spec;
@@ -255,11 +258,15 @@ export function PublicVersionView({ data, modelPage }: { data: PublicVersion; mo
               Cite this version
             </h2>
             <p className="break-words" data-testid="citation-text">
-              {toPlainText(citation)}
+              {plainCitation}
             </p>
+            <div className="flex flex-wrap gap-2">
+              <CopyButton text={plainCitation} label="Copy citation" />
+              <CopyButton text={bibtex} label="Copy BibTeX" />
+            </div>
             <details>
               <summary className="cursor-pointer font-medium text-tide">BibTeX</summary>
-              <pre className="mt-2 overflow-x-auto rounded-lg border border-line bg-sunken p-3 font-mono text-2xs">{toBibtex(citation)}</pre>
+              <pre className="mt-2 overflow-x-auto rounded-lg border border-line bg-sunken p-3 font-mono text-2xs">{bibtex}</pre>
             </details>
             <p className="font-mono text-2xs break-all text-ink-faint">SHA-256 {version.specSha256}</p>
           </section>
