@@ -9,7 +9,7 @@
  */
 import "server-only";
 import { and, asc, desc, eq, lt, or, sql, gte, lte } from "drizzle-orm";
-import { db } from "@/db/client";
+import { db, isBusyError } from "@/db/client";
 import { job } from "@/db/schema";
 import type { Report } from "@/lib/engine/types";
 import { recordAudit, type Executor } from "@/lib/audit";
@@ -20,22 +20,17 @@ import type { Viewer } from "@/lib/types/deposit";
 import { toJobStatus, type JobRow, type JobStatus } from "@/lib/types/jobs";
 
 export { toJobStatus, type JobRow, type JobStatus } from "@/lib/types/jobs";
+export { isBusyError } from "@/db/client";
 
 export const DEFAULT_MAX_ATTEMPTS = 3;
-
-/** True for SQLite's "database is locked" (SQLITE_BUSY), anywhere in the error's cause chain. */
-export function isBusyError(e: unknown): boolean {
-  for (let cur: unknown = e; cur instanceof Error; cur = cur.cause) {
-    const code = (cur as { code?: unknown }).code;
-    if (code === "SQLITE_BUSY" || /SQLITE_BUSY|database is locked/.test(cur.message)) return true;
-  }
-  return false;
-}
 
 /**
  * Runs `fn` again (up to 8 times, waiting 20 ms, 40 ms, ... up to 1 s) when SQLite answers
  * SQLITE_BUSY: another process, or another connection of this one, holds the write lock for a
  * moment. Waiting asynchronously lets this process's own open transaction finish meanwhile.
+ * Running `fn` again is safe: a write that met SQLITE_BUSY changed nothing (in WAL mode the
+ * write lock comes before the first change, and COMMIT does not wait for readers), and the
+ * retry runs on a connection the busy statement never touched (db/client.ts).
  */
 export async function withBusyRetry<T>(fn: () => Promise<T>): Promise<T> {
   for (let attempt = 0; ; attempt++) {
@@ -124,7 +119,10 @@ async function failAbandonedJobsOnce(now: number = Date.now()): Promise<JobRow[]
  * Hands the oldest claimable job to `workerId` with a lease of `leaseMs`, or returns null.
  * Claimable: queued and due (run_after <= now), or running under an expired lease with
  * attempts left. One UPDATE ... WHERE id = (SELECT ...) RETURNING: SQLite runs it under the
- * database's write lock, so two processes can never both get the same job.
+ * database's write lock, so two processes can never both get the same job. The row comes back
+ * only once the statement has committed (the driver steps it to the end before returning), so
+ * a returned job is durably this worker's; this holds because db/client.ts never runs it on a
+ * connection where an earlier busy statement was left active (see BusyResetClient).
  */
 async function claimNextOnce(workerId: string, leaseMs: number, now: number = Date.now()): Promise<JobRow | null> {
   const at = new Date(now);
