@@ -32,8 +32,8 @@ export function CapturedMailView({ mails, selected, basePath, emptyText }: { mai
   }
   const open = selected ?? mails[0] ?? null;
   return (
-    <div className="grid gap-6 lg:grid-cols-[minmax(16rem,22rem)_1fr]">
-      <ul className="flex flex-col gap-1" aria-label="Messages, newest first" data-testid="mail-list">
+    <div className="grid grid-cols-1 gap-6 lg:grid-cols-[minmax(16rem,22rem)_minmax(0,1fr)]">
+      <ul className="flex min-w-0 flex-col gap-1" aria-label="Messages, newest first" data-testid="mail-list">
         {mails.map((m) => {
           const active = open?.id === m.id;
           return (

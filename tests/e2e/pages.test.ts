@@ -93,9 +93,13 @@ describe("narrow screen", () => {
     await page.setViewportSize({ width: 390, height: 800 });
     const res = await page.goto(path);
     expect(res?.status()).toBe(status);
-    const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
-    expect(overflow).toBeLessThanOrEqual(0);
     await screenshot(page, `pages/${name}-narrow`);
+    const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
+    const widest = await page.evaluate(() => {
+      const el = [...document.querySelectorAll("body *")].find((e) => e.getBoundingClientRect().right > window.innerWidth + 1);
+      return el === undefined ? "" : `${el.tagName}.${el.className}`;
+    });
+    expect(overflow, `wider than the screen: ${widest}`).toBeLessThanOrEqual(0);
     await page.setViewportSize({ width: 1280, height: 860 });
   });
 });

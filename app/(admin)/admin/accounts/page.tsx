@@ -30,13 +30,13 @@ export default async function AccountsPage({ searchParams }: { searchParams: Pro
         {query === "" ? `${total} accounts` : `${total} ${total === 1 ? "account matches" : "accounts match"} “${query}”`}
       </p>
       <div className="overflow-x-auto rounded-[var(--radius-card)] border border-line">
-        <table className="w-full min-w-[40rem] text-left text-sm">
+        <table className="w-full text-left text-sm">
           <thead className="bg-sunken text-xs uppercase tracking-wider text-ink-faint">
             <tr>
               <th scope="col" className="px-4 py-2.5 font-semibold">Account</th>
-              <th scope="col" className="px-4 py-2.5 font-semibold">Address</th>
+              <th scope="col" className="hidden px-4 py-2.5 font-semibold sm:table-cell">Address</th>
               <th scope="col" className="px-4 py-2.5 font-semibold">Role</th>
-              <th scope="col" className="px-4 py-2.5 font-semibold">Joined</th>
+              <th scope="col" className="hidden px-4 py-2.5 font-semibold md:table-cell">Joined</th>
             </tr>
           </thead>
           <tbody className="divide-y divide-line bg-surface">
@@ -44,9 +44,10 @@ export default async function AccountsPage({ searchParams }: { searchParams: Pro
               <tr key={a.id} data-testid={`account-${a.email}`}>
                 <td className="px-4 py-3">
                   <span className="font-semibold">{a.name}</span>
-                  <span className="block text-xs text-ink-soft">{a.email}</span>
+                  <span className="block break-all text-xs text-ink-soft">{a.email}</span>
+                  <span className="mt-1 block text-xs sm:hidden">{a.emailVerified ? "Address confirmed" : "Address not confirmed"}</span>
                 </td>
-                <td className="px-4 py-3">
+                <td className="hidden px-4 py-3 sm:table-cell">
                   {a.emailVerified ? (
                     <span className="inline-flex items-center gap-1 text-confirmed">
                       <CheckIcon /> Confirmed
@@ -57,14 +58,14 @@ export default async function AccountsPage({ searchParams }: { searchParams: Pro
                     </span>
                   )}
                 </td>
-                <td className="px-4 py-3">
+                <td className="px-3 py-3 sm:px-4">
                   {a.id === me.userId ? (
                     <span className="text-ink-soft">Administrator (you)</span>
                   ) : (
                     <RoleForm userId={a.id} email={a.email} role={a.role} />
                   )}
                 </td>
-                <td className="px-4 py-3 text-ink-soft">{joined.format(a.createdAt)}</td>
+                <td className="hidden px-4 py-3 text-ink-soft md:table-cell">{joined.format(a.createdAt)}</td>
               </tr>
             ))}
           </tbody>
