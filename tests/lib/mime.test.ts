@@ -1,9 +1,9 @@
 /** lib/mime.ts reads what nodemailer writes (the fake SMTP server stores it). */
-import nodemailer from "nodemailer";
+import nodemailer, { type SendMailOptions } from "nodemailer";
 import { describe, expect, it } from "vitest";
 import { decodeHeaderValue, parseMail } from "@/lib/mime";
 
-async function compose(message: nodemailer.SendMailOptions): Promise<string> {
+async function compose(message: SendMailOptions): Promise<string> {
   // nodemailer's stream transport builds the exact RFC 5322 text it would send.
   const t = nodemailer.createTransport({ streamTransport: true, buffer: true, newline: "unix" });
   const info = await t.sendMail(message);
