@@ -50,8 +50,20 @@ function bodyField(body: unknown, key: string): unknown {
   return typeof body === "object" && body !== null ? (body as Record<string, unknown>)[key] : undefined;
 }
 
+/**
+ * The admin plugin's own HTTP endpoints are switched off: role changes, bans and the rest go
+ * through lib/authz.ts and lib/users.ts (with the audit trail), never around them. The plugin
+ * still supplies the role field and refuses sign-in to banned accounts.
+ */
+export const DISABLED_ADMIN_PATHS = [
+  "set-role", "get-user", "create-user", "update-user", "list-users", "list-user-sessions", "unban-user", "ban-user",
+  "impersonate-user", "stop-impersonating", "revoke-user-session", "revoke-user-sessions", "remove-user",
+  "set-user-password", "has-permission",
+].map((p) => `/admin/${p}`);
+
 export const auth = betterAuth({
   appName: "Restpoint",
+  disabledPaths: DISABLED_ADMIN_PATHS,
   baseURL: env.authUrl,
   secret: env.authSecret,
   trustedOrigins: trustedOrigins(),

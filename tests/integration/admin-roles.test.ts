@@ -94,3 +94,16 @@ describe("setRole", () => {
     expect(events).toHaveLength(0);
   });
 });
+
+describe("better-auth's admin endpoints", () => {
+  it("are switched off, so nobody changes roles around the accounts page", async () => {
+    const { authCall } = await import("./app-support");
+    const admin = await accountIn("admin");
+    const target = await accountIn("author");
+    const res = await authCall("POST", "/admin/set-role", { body: { userId: target.id, role: "admin" }, cookie: admin.cookie });
+    expect(res.status).toBe(404);
+    const impersonate = await authCall("POST", "/admin/impersonate-user", { body: { userId: target.id }, cookie: admin.cookie });
+    expect(impersonate.status).toBe(404);
+    expect(await roleOf(target.id)).toBe("author");
+  });
+});
