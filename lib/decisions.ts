@@ -12,6 +12,7 @@ import { z } from "zod";
 import { db } from "@/db/client";
 import { DECISION_OUTCOMES, decision, model, report, user, venue, version, type DecisionOutcome } from "@/db/schema";
 import { listAudit, recordAudit } from "@/lib/audit";
+import { withBusyRetry } from "@/lib/jobs";
 import type { ModelBadgeFacts, VersionBadgeFacts } from "@/lib/badges";
 import type { Report, Verdict } from "@/lib/engine/types";
 import { env } from "@/lib/env";
@@ -159,7 +160,8 @@ async function decide(
   const id = crypto.randomUUID();
   const madePublic = fields.outcome === "verified" && m2.visibility === "private";
   try {
-    await db.transaction(async (tx) => {
+    // A write lock held elsewhere for longer than the busy timeout is waited out, not reported.
+    await withBusyRetry(() => db.transaction(async (tx) => {
       await tx.insert(decision).values({
         id,
         venueId: v.id,
@@ -181,7 +183,7 @@ async function decide(
         },
         tx,
       );
-    });
+    }));
   } catch (e) {
     if (isUniqueViolation(e)) throw new Conflict(ALREADY_DECIDED_MESSAGE(ver.number));
     throw e;
