@@ -18,6 +18,7 @@ import type { Report, Verdict } from "@/lib/engine/types";
 import { env } from "@/lib/env";
 import { Conflict, Forbidden, NotFound, ValidationError } from "@/lib/errors";
 import { zodDetails } from "@/lib/http";
+import { publicContentChanged } from "@/lib/public-cache";
 import { sendMail, type OutgoingMail } from "@/lib/mail";
 import { diffSpecs, diffVerdicts, type ReportLike, type SpecDiff, type VerdictDiff } from "@/lib/spec-diff";
 import {
@@ -103,6 +104,8 @@ export async function recordDecision(
   input: DecisionInput,
 ): Promise<DecisionView> {
   const { view, ownerId, m, madePublic } = await oneAtATime(() => decide(actor, target, input));
+  // Made public, or a public model's badge changed: its cached public pages go.
+  if (m.visibility === "public") await publicContentChanged(m.id);
   await mailOwner(ownerId, m, view, madePublic);
   return view;
 }
@@ -111,7 +114,12 @@ async function decide(
   actor: VenueActor,
   target: { model: string; number: number },
   input: DecisionInput,
-): Promise<{ view: DecisionView; ownerId: string; m: { slug: string; title: string }; madePublic: boolean }> {
+): Promise<{
+  view: DecisionView;
+  ownerId: string;
+  m: { id: string; slug: string; title: string; visibility: "private" | "public" };
+  madePublic: boolean;
+}> {
   const [m2] = await db
     .select()
     .from(model)
@@ -199,7 +207,8 @@ async function decide(
     venue: { id: v.id, slug: v.slug, name: v.name },
     editor: { id: actor.id, name: editor?.name ?? "" },
   };
-  return { view, ownerId: m2.ownerId, m: { slug: m2.slug, title: m2.title }, madePublic };
+  const visibility = madePublic ? "public" : m2.visibility;
+  return { view, ownerId: m2.ownerId, m: { id: m2.id, slug: m2.slug, title: m2.title, visibility }, madePublic };
 }
 
 /** The mail the owner receives (exported for its test). */

@@ -10,11 +10,12 @@
 import "server-only";
 import { and, asc, desc, eq, lt, or, sql, gte, lte } from "drizzle-orm";
 import { db, isBusyError } from "@/db/client";
-import { job } from "@/db/schema";
+import { job, version } from "@/db/schema";
 import type { Report } from "@/lib/engine/types";
 import { recordAudit, type Executor } from "@/lib/audit";
 import { NotFound } from "@/lib/errors";
 import { loadVisibleVersion } from "@/lib/models";
+import { publicContentChanged } from "@/lib/public-cache";
 import { storeReport } from "@/lib/reports";
 import type { Viewer } from "@/lib/types/deposit";
 import { toJobStatus, type JobRow, type JobStatus } from "@/lib/types/jobs";
@@ -296,8 +297,22 @@ export function heartbeat(jobId: string, workerId: string, leaseMs: number, now:
 }
 
 /** Stores the report and finishes the job in one transaction; false when the lease was lost (see completeJobOnce). */
-export function completeJob(jobId: string, workerId: string, report: Report, durationMs: number, now: number = Date.now()): Promise<boolean> {
-  return withBusyRetry(() => completeJobOnce(jobId, workerId, report, durationMs, now));
+export async function completeJob(jobId: string, workerId: string, report: Report, durationMs: number, now: number = Date.now()): Promise<boolean> {
+  const done = await withBusyRetry(() => completeJobOnce(jobId, workerId, report, durationMs, now));
+  if (done) await reportStored(jobId);
+  return done;
+}
+
+/** A public page showed the version as pending: revalidate it (skipped outside a request; see lib/public-cache.ts). */
+async function reportStored(jobId: string): Promise<void> {
+  try {
+    const rows = await db.select({ modelId: version.modelId }).from(job).innerJoin(version, eq(job.versionId, version.id)).where(eq(job.id, jobId));
+    const modelId = rows[0]?.modelId;
+    if (modelId !== undefined) await publicContentChanged(modelId);
+  } catch (e) {
+    // The report is committed; a page left stale until its revalidate time is not worth failing the job.
+    console.error(`revalidating the public pages after job ${jobId} failed:`, e);
+  }
 }
 
 /** Records a failed attempt: "retry" (queued after a back-off), "failed" (final) or "lost" (see failJobOnce). */

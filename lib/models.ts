@@ -9,6 +9,7 @@ import { and, asc, desc, eq, inArray, or } from "drizzle-orm";
 import { db } from "@/db/client";
 import { job, model, modelAuthor, report, venue, venueEditor, version } from "@/db/schema";
 import { recordAudit } from "@/lib/audit";
+import { publicContentChanged } from "@/lib/public-cache";
 import { Forbidden, NotFound, ValidationError } from "@/lib/errors";
 import { zodDetails } from "@/lib/http";
 import { toJobStatus, type JobRow } from "@/lib/types/jobs";
@@ -232,6 +233,8 @@ export async function updateModel(idOrSlug: string, actor: Viewer, input: ModelI
       tx,
     );
   });
+  // Public before or after: its cached pages and reports go (a model made private 404s at once).
+  if (row.visibility === "public" || fields.visibility === "public") await publicContentChanged(row.id);
   return getModel(row.id, actor);
 }
 

@@ -10,6 +10,7 @@ import { and, eq, max } from "drizzle-orm";
 import { db } from "@/db/client";
 import { file, version } from "@/db/schema";
 import { recordAudit } from "@/lib/audit";
+import { publicContentChanged } from "@/lib/public-cache";
 import { specSha256 } from "@/lib/engine/canonical";
 import type { GameSpec, ModelSpec, SpecError } from "@/lib/engine/types";
 import { validateSpec } from "@/lib/engine/validate";
@@ -158,6 +159,8 @@ export async function addVersion(
         return row;
       }));
       pokeWorker();
+      // The model page shows the newest version, and older version pages stop being the latest.
+      if (m.visibility === "public") await publicContentChanged(m.id);
       return { status: "created", version: await summary(created) };
     } catch (e) {
       // Two uploads at once: the same content lost the race to the other, or a number clashed.

@@ -1,11 +1,8 @@
 /** The bar on every page: the mark, the places this visitor may go, and who is signed in. */
 import Link from "next/link";
 import { Wordmark } from "@/components/brand/LogoMark";
-import { getActor, hasRole } from "@/lib/authz";
 import { env } from "@/lib/env";
-import { SignOutButton } from "./SignOutButton";
-
-const ROLE_WORD = { author: "Author", editor: "Editor", admin: "Administrator" } as const;
+import { AccountArea, AccountNav } from "./AccountArea";
 
 function NavLink({ href, children }: { href: string; children: React.ReactNode }) {
   return (
@@ -15,8 +12,11 @@ function NavLink({ href, children }: { href: string; children: React.ReactNode }
   );
 }
 
-export async function SiteHeader() {
-  const actor = await getActor();
+/**
+ * Static on the server: the session is read in the browser (AccountArea), so the header does not
+ * make every page dynamic. Whether captured mail exists is a server fact, passed down.
+ */
+export function SiteHeader() {
   return (
     <header className="border-b border-line bg-surface/90">
       <div className="mx-auto flex max-w-6xl flex-wrap items-center gap-x-6 gap-y-2 px-4 py-3 sm:px-6">
@@ -25,34 +25,9 @@ export async function SiteHeader() {
         </Link>
         <nav aria-label="Main" className="order-last -mx-2.5 flex w-full flex-wrap items-center gap-1 sm:order-none sm:mx-0 sm:w-auto sm:flex-1">
           <NavLink href="/models">Models</NavLink>
-          {actor === null ? null : <NavLink href="/workspace">Workspace</NavLink>}
-          {hasRole(actor, "admin") ? <NavLink href="/admin">Administration</NavLink> : null}
-          {actor !== null && env.useFakeSmtp ? <NavLink href="/dev/mail">Captured mail</NavLink> : null}
+          <AccountNav fakeMail={env.useFakeSmtp} />
         </nav>
-        <div className="ml-auto flex items-center gap-2">
-          {actor === null ? (
-            <>
-              <Link href="/sign-in" className="rounded-[var(--radius-control)] px-3 py-1.5 text-sm font-semibold text-tide hover:bg-tide-wash">
-                Sign in
-              </Link>
-              <Link href="/sign-up" className="rounded-[var(--radius-control)] bg-tide px-3 py-1.5 text-sm font-semibold text-on-tide hover:bg-tide-strong">
-                Create account
-              </Link>
-            </>
-          ) : (
-            <>
-              <span className="flex flex-col items-end leading-tight">
-                <span className="text-sm font-medium text-ink" data-testid="signed-in-as">
-                  {actor.name}
-                </span>
-                <span className="text-2xs uppercase tracking-wider text-ink-faint" data-testid="signed-in-role">
-                  {ROLE_WORD[actor.role]}
-                </span>
-              </span>
-              <SignOutButton />
-            </>
-          )}
-        </div>
+        <AccountArea />
       </div>
     </header>
   );
