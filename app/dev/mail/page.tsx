@@ -6,6 +6,7 @@
 import type { Metadata } from "next";
 import { cookies } from "next/headers";
 import { notFound, unauthorized } from "next/navigation";
+import { connection } from "next/server";
 import { CapturedMailView } from "@/components/mail/CapturedMailView";
 import { Notice } from "@/components/ui/Notice";
 import { PageHeader } from "@/components/ui/PageHeader";
@@ -17,6 +18,8 @@ import { MAILBOX_COOKIE, readMailbox } from "@/lib/mailbox";
 export const metadata: Metadata = { title: "Captured mail" };
 
 export default async function DevMailPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+  // Decided per request: a build (no demo flag, production mode) must not bake in the 404.
+  await connection();
   if (!env.useFakeSmtp) notFound();
   const actor = await getActor();
   const mailbox = actor === null ? readMailbox((await cookies()).get(MAILBOX_COOKIE)?.value) : null;
