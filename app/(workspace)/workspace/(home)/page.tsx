@@ -1,9 +1,12 @@
 import type { Metadata } from "next";
 import Link from "next/link";
+import { ModelList } from "@/components/deposit/ModelList";
 import { ButtonLink } from "@/components/ui/Button";
 import { EmptyState } from "@/components/ui/EmptyState";
 import { PageHeader, Section } from "@/components/ui/PageHeader";
+import type { Role } from "@/db/schema";
 import { pageUser } from "@/lib/authz";
+import { listModelsForOwner } from "@/lib/models";
 import { countAccountsByRole } from "@/lib/users";
 import { listVenuesForEditor } from "@/lib/venues";
 
@@ -60,13 +63,27 @@ async function AdminSection() {
   );
 }
 
-function ModelsSection() {
-  // The list of the author's models replaces this empty state once deposits exist.
+const RECENT_MODELS = 5;
+
+async function ModelsSection({ userId, role }: { userId: string; role: Role }) {
+  const models = await listModelsForOwner({ id: userId, role });
   return (
     <Section title="Your models" id="models" description="Models you deposited, with the verdict of each version's re-run.">
-      <EmptyState title="You have not deposited a model yet." action={<ButtonLink href="/workspace/models/new">Deposit a model</ButtonLink>}>
-        A deposit is a model specification: strategies, payoffs, parameters, dynamics and the claims your paper makes. Restpoint re-runs it and reports on every claim.
-      </EmptyState>
+      {models.length === 0 ? (
+        <EmptyState title="You have not deposited a model yet." action={<ButtonLink href="/workspace/models/new">Deposit a model</ButtonLink>}>
+          A deposit is a model specification: strategies, payoffs, parameters, dynamics and the claims your paper makes. Restpoint re-runs it and reports on every claim.
+        </EmptyState>
+      ) : (
+        <>
+          <ModelList models={models.slice(0, RECENT_MODELS)} />
+          <div className="flex flex-wrap gap-3">
+            <ButtonLink href="/workspace/models" kind="secondary">
+              {models.length > RECENT_MODELS ? `All ${models.length} models` : "Manage your models"}
+            </ButtonLink>
+            <ButtonLink href="/workspace/models/new">Deposit a model</ButtonLink>
+          </div>
+        </>
+      )}
     </Section>
   );
 }
@@ -78,7 +95,7 @@ export default async function WorkspacePage() {
       <PageHeader overline={me.role === "admin" ? "Administrator" : me.role === "editor" ? "Editor" : "Author"} title={`Welcome, ${me.name}`} lede={ROLE_LEDE[me.role]} />
       {me.role === "admin" ? <AdminSection /> : null}
       {me.role === "editor" ? <VenuesSection userId={me.userId} /> : null}
-      <ModelsSection />
+      <ModelsSection userId={me.userId} role={me.role} />
     </div>
   );
 }
