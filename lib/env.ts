@@ -14,6 +14,8 @@ const schema = z.object({
   DATA_DIR: z.string().min(1).default("data"),
   /** Folder that holds uploaded files by content hash. */
   UPLOADS_DIR: z.string().min(1).default("uploads"),
+  /** Port the web server listens on (Next reads it too); the default public address follows it. */
+  PORT: z.coerce.number().int().min(1).max(65535).default(3000),
   BETTER_AUTH_SECRET: z.string().min(16).optional(),
   BETTER_AUTH_URL: z.url().optional(),
   /** smtp(s)://user:pass@host:port of a real server; without it the app starts the local fake. */
@@ -62,7 +64,9 @@ export const env = {
   dataDir,
   uploadsDir: path.resolve(raw.UPLOADS_DIR),
   databaseUrl: raw.DATABASE_URL ?? `file:${path.join(dataDir, "restpoint.db")}`,
-  authUrl: raw.BETTER_AUTH_URL ?? "http://localhost:3000",
+  // The public address of the app (links in mail, citations, sign-in origin checks). Without
+  // BETTER_AUTH_URL it is this machine on the port the server runs on.
+  authUrl: raw.BETTER_AUTH_URL ?? `http://localhost:${raw.PORT}`,
   // A fixed development secret is fine locally; production must set its own (checked in lib/auth.ts).
   authSecret: raw.BETTER_AUTH_SECRET ?? "restpoint-development-secret-not-for-production",
 };
