@@ -11,6 +11,7 @@ import "@uppy/core/css/style.min.css";
 import "@uppy/dashboard/css/style.min.css";
 import "./uppy-theme.css";
 import { useEffect, useRef, useState } from "react";
+import { isRefusalMessage, markRefusal, uploadLogger, withoutRefusalNotices } from "./upload-refusal";
 
 export interface UploadOutcome {
   fileName: string;
@@ -61,12 +62,14 @@ export function UploadWidget({ id, endpoint, fieldName, restrictions, note, onRe
   const [theme, setTheme] = useState<"light" | "dark" | "auto">("auto");
   const [uppy] = useState(
     () =>
-      new Uppy({ id, autoProceed: true, restrictions }).use(XHRUpload, {
+      new Uppy({ id, autoProceed: true, restrictions, logger: uploadLogger((...args) => console.error(...args)) }).use(XHRUpload, {
         endpoint,
         fieldName,
         formData: true,
         // The server answers in JSON for every status; a 4xx is a verdict on the file, not a glitch to retry.
         shouldRetry: () => false,
+        // A refusal is explained beside the widget: mark it so it is not taken for a network error.
+        onAfterResponse: (xhr) => markRefusal(xhr),
         limit: 2,
         timeout: 0,
       }),
@@ -79,6 +82,10 @@ export function UploadWidget({ id, endpoint, fieldName, restrictions, note, onRe
     };
     const onError = (file: { name?: string } | undefined, error: unknown) => {
       const xhr = xhrOf(error);
+      // Uppy has just queued its own "Failed to upload" notice; the app's message says more.
+      if (error instanceof Error && isRefusalMessage(error.message)) {
+        uppy.setState({ info: withoutRefusalNotices(uppy.getState().info) });
+      }
       onResultRef.current({
         fileName: file?.name ?? "",
         status: xhr?.status ?? 0,
