@@ -17,12 +17,14 @@ const ALL: readonly Role[] = ["author", "editor", "admin"];
 export const WORKSPACE_NAV: NavEntry[] = [
   { href: "/workspace", label: "Overview", roles: ALL },
   { href: "/workspace/models", label: "Your models", roles: ALL },
+  { href: "/workspace/venues", label: "Venues and queues", roles: ["editor", "admin"] },
   { href: "/workspace/settings/tokens", label: "API tokens", roles: ALL },
 ];
 
 export const ADMIN_NAV: NavEntry[] = [
   { href: "/admin", label: "Overview", roles: ["admin"] },
   { href: "/admin/accounts", label: "Accounts", roles: ["admin"] },
+  { href: "/admin/venues", label: "Venues", roles: ["admin"] },
   { href: "/admin/mail", label: "Captured mail", roles: ["admin"] },
 ];
 
