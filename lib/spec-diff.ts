@@ -1,11 +1,11 @@
 /**
  * Differences between two versions of a model: the spec as canonical, pretty-printed JSON
- * compared line by line (with the `diff` package), and the verdict diff of their reports
+ * compared line by line (with the `diff` package; replaced lines also word by word), and the verdict diff of their reports
  * (claims added, removed, or whose status or deviation changed).
  *
  * Pure functions: no database, no Next.js. The compare page and the diff API both call them.
  */
-import { diffLines } from "diff";
+import { diffLines, diffWordsWithSpace } from "diff";
 import type { ClaimResult, ClaimStatus, Verdict } from "@/lib/engine/types";
 
 // ---------------------------------------------------------------------------
@@ -62,9 +62,21 @@ function render(value: unknown, indent: string): string {
 
 export type LineKind = "same" | "added" | "removed";
 
+/** A stretch of one line's text; `changed` marks words the other side of a pair does not have. */
+export interface LinePart {
+  text: string;
+  changed: boolean;
+}
+
 export interface DiffLine {
   kind: LineKind;
   text: string;
+  /**
+   * For a removed line paired with the added line that replaced it (the nth removed line of a
+   * change with its nth added line): the line cut into unchanged and changed words, so a small
+   * change in a long line can be seen without reading both lines.
+   */
+  parts?: LinePart[];
   /** 1-based line in the older text (absent for an added line). */
   oldLine?: number;
   /** 1-based line in the newer text (absent for a removed line). */
@@ -114,7 +126,47 @@ export function diffText(oldText: string, newText: string, context = 3): SpecDif
       }
     }
   }
+  pairChangedWords(lines);
   return { rows: fold(lines, Math.max(0, context)), added, removed, identical: added === 0 && removed === 0 };
+}
+
+/**
+ * Word diff (the `diff` package's diffWordsWithSpace, which keeps every space of both texts)
+ * of a removed line and the added line that replaced it.
+ */
+export function wordParts(oldLine: string, newLine: string): { old: LinePart[]; new: LinePart[] } {
+  const old: LinePart[] = [];
+  const neu: LinePart[] = [];
+  for (const c of diffWordsWithSpace(oldLine, newLine)) {
+    if (!c.added) old.push({ text: c.value, changed: c.removed });
+    if (!c.removed) neu.push({ text: c.value, changed: c.added });
+  }
+  return { old, new: neu };
+}
+
+/** Pairs each run of removed lines with the added lines right after it, position by position. */
+function pairChangedWords(lines: DiffLine[]): void {
+  let i = 0;
+  while (i < lines.length) {
+    if (lines[i]?.kind !== "removed") {
+      i++;
+      continue;
+    }
+    let r = i;
+    while (lines[r]?.kind === "removed") r++;
+    let a = r;
+    while (lines[a]?.kind === "added") a++;
+    const pairs = Math.min(r - i, a - r);
+    for (let k = 0; k < pairs; k++) {
+      const before = lines[i + k];
+      const after = lines[r + k];
+      if (before === undefined || after === undefined) continue;
+      const w = wordParts(before.text, after.text);
+      before.parts = w.old;
+      after.parts = w.new;
+    }
+    i = a;
+  }
 }
 
 /** The canonical pretty-printed texts of two specs, diffed line by line. */
@@ -176,13 +228,14 @@ function fold(lines: DiffLine[], context: number): DiffRow[] {
 /** The parts of a report the verdict diff reads; null when the version has no report yet. */
 export interface ReportLike {
   verdict: Verdict;
-  claims: Pick<ClaimResult, "id" | "kind" | "status" | "deviation" | "message">[];
+  claims: Pick<ClaimResult, "id" | "kind" | "status" | "deviation" | "tolerance" | "message">[];
 }
 
 export interface ClaimSide {
   kind: string;
   status: ClaimStatus;
   deviation?: number;
+  tolerance?: number;
   message: string;
 }
 
@@ -210,22 +263,45 @@ export interface VerdictDiff {
 }
 
 /**
- * Two deviations are the same when they differ by at most this much relative to the larger
- * (or absolutely, below 1): the engine is deterministic, so any larger difference comes
- * from a changed spec, while this margin keeps last-digit noise out of the view.
+ * Significant digits a deviation is shown with (the compare view writes it as 3.3 × 10⁻⁷).
+ * A deviation only counts as changed when the reader can see the change: two values that
+ * print alike at this precision are the same, unless they fall on different sides of the
+ * claim's tolerance (then the printed digits may agree, but the claim's standing does not).
  */
-export const DEVIATION_EPSILON = 1e-12;
+export const DEVIATION_DIGITS = 2;
 
+/** The mantissa and exponent a deviation is shown with, as text ("3.3e-7"); non-finite values as themselves. */
+export function shownDeviation(d: number): string {
+  return Number.isFinite(d) ? d.toExponential(DEVIATION_DIGITS - 1) : String(d);
+}
+
+/** Equal as shown: both missing, or both print alike with DEVIATION_DIGITS significant digits (NaN equals NaN). */
 export function sameDeviation(a: number | undefined, b: number | undefined): boolean {
   if (a === undefined || b === undefined) return a === b;
-  if (Number.isNaN(a) || Number.isNaN(b)) return Number.isNaN(a) && Number.isNaN(b);
-  if (a === b) return true; // also equal infinities
-  return Math.abs(a - b) <= DEVIATION_EPSILON * Math.max(1, Math.abs(a), Math.abs(b));
+  return shownDeviation(a) === shownDeviation(b);
+}
+
+/** Whether `deviation` is within `tolerance` (undefined when either is missing). */
+function within(deviation: number | undefined, tolerance: number | undefined): boolean | undefined {
+  if (deviation === undefined || tolerance === undefined) return undefined;
+  return deviation <= tolerance;
+}
+
+/**
+ * A deviation changed between two runs of a claim when it differs at the shown precision, or
+ * when it is within its tolerance on one side and outside on the other.
+ */
+export function deviationChanged(from: Pick<ClaimSide, "deviation" | "tolerance">, to: Pick<ClaimSide, "deviation" | "tolerance">): boolean {
+  if (!sameDeviation(from.deviation, to.deviation)) return true;
+  const a = within(from.deviation, from.tolerance);
+  const b = within(to.deviation, to.tolerance);
+  return a !== undefined && b !== undefined && a !== b;
 }
 
 function side(c: ReportLike["claims"][number]): ClaimSide {
   const s: ClaimSide = { kind: c.kind, status: c.status, message: c.message };
   if (c.deviation !== undefined) s.deviation = c.deviation;
+  if (c.tolerance !== undefined) s.tolerance = c.tolerance;
   return s;
 }
 
@@ -241,10 +317,10 @@ export function diffVerdicts(from: ReportLike | null, to: ReportLike | null): Ve
       continue;
     }
     const statusChanged = f.status !== t.status;
-    const deviationChanged = !sameDeviation(f.deviation, t.deviation);
+    const devChanged = deviationChanged(f, t);
     const kindChanged = f.kind !== t.kind;
-    if (statusChanged || deviationChanged || kindChanged) {
-      claims.push({ id, change: "changed", from: side(f), to: side(t), statusChanged, deviationChanged, kindChanged });
+    if (statusChanged || devChanged || kindChanged) {
+      claims.push({ id, change: "changed", from: side(f), to: side(t), statusChanged, deviationChanged: devChanged, kindChanged });
     } else {
       claims.push({ id, change: "unchanged", from: side(f), to: side(t) });
     }

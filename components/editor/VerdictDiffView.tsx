@@ -1,7 +1,7 @@
 /** Claims added, removed, or changed in status or deviation between two versions' reports. */
 import { Sci } from "@/components/report";
 import { VerdictTag } from "@/components/status/VerdictTag";
-import type { ClaimChange, ClaimSide, VerdictDiff } from "@/lib/spec-diff";
+import { DEVIATION_DIGITS, type ClaimChange, type ClaimSide, type VerdictDiff } from "@/lib/spec-diff";
 
 const CHANGE_WORDS: Record<ClaimChange["change"], string> = {
   added: "Added",
@@ -23,7 +23,7 @@ function Side({ side }: { side: ClaimSide | undefined }) {
       <VerdictTag verdict={side.status} size="sm" />
       {side.deviation === undefined ? null : (
         <span className="font-mono text-2xs text-ink-soft">
-          deviation <Sci value={side.deviation} />
+          deviation <Sci value={side.deviation} digits={DEVIATION_DIGITS} />
         </span>
       )}
     </span>

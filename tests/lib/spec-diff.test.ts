@@ -4,7 +4,10 @@ import {
   diffSpecs,
   diffText,
   diffVerdicts,
+  deviationChanged,
   sameDeviation,
+  shownDeviation,
+  wordParts,
   type ReportLike,
 } from "@/lib/spec-diff";
 
@@ -59,8 +62,8 @@ describe("diffText", () => {
     expect(d.removed).toBe(1);
     expect(d.rows).toEqual([
       { kind: "same", text: "a", oldLine: 1, newLine: 1 },
-      { kind: "removed", text: "b", oldLine: 2 },
-      { kind: "added", text: "B", newLine: 2 },
+      { kind: "removed", text: "b", oldLine: 2, parts: [{ text: "b", changed: true }] },
+      { kind: "added", text: "B", newLine: 2, parts: [{ text: "B", changed: true }] },
       { kind: "same", text: "c", oldLine: 3, newLine: 3 },
       { kind: "added", text: "d", newLine: 4 },
     ]);
@@ -94,9 +97,60 @@ describe("diffSpecs", () => {
     const d = diffSpecs(finchesV1, v2);
     const changed = d.rows.filter((r) => r.kind === "added" || r.kind === "removed");
     expect(changed).toEqual([
-      { kind: "removed", text: '      "state": [0.5, 0.5]', oldLine: 6 },
-      { kind: "added", text: '      "state": [0.4, 0.6]', newLine: 6 },
+      {
+        kind: "removed",
+        text: '      "state": [0.5, 0.5]',
+        oldLine: 6,
+        parts: [
+          { text: '      "state": [0.', changed: false },
+          { text: "5", changed: true },
+          { text: ", 0.", changed: false },
+          { text: "5", changed: true },
+          { text: "]", changed: false },
+        ],
+      },
+      {
+        kind: "added",
+        text: '      "state": [0.4, 0.6]',
+        newLine: 6,
+        parts: [
+          { text: '      "state": [0.', changed: false },
+          { text: "4", changed: true },
+          { text: ", 0.", changed: false },
+          { text: "6", changed: true },
+          { text: "]", changed: false },
+        ],
+      },
     ]);
+  });
+
+  it("marks the changed words of a long replaced line, and the parts spell each line exactly", () => {
+    const v1 = { ...finchesV1, title: "Patch choice in island finches when the open patch is watched by a kestrel each morning" };
+    const v2 = { ...finchesV1, title: "Patch choice in island finches when the open patch is watched by a kestrel each evening" };
+    const d = diffSpecs(v1, v2);
+    const changed = d.rows.filter((r) => r.kind === "added" || r.kind === "removed");
+    expect(changed).toHaveLength(2);
+    for (const r of changed) {
+      if (r.kind === "skipped") continue;
+      expect(r.parts?.map((p) => p.text).join("")).toBe(r.text);
+      expect(r.parts?.filter((p) => p.changed).map((p) => p.text)).toEqual([r.kind === "removed" ? "morning" : "evening"]);
+    }
+  });
+
+  it("leaves unpaired added or removed lines without word parts", () => {
+    const d = diffText("a\n", "a\nb\n");
+    expect(d.rows).toEqual([
+      { kind: "same", text: "a", oldLine: 1, newLine: 1 },
+      { kind: "added", text: "b", newLine: 2 },
+    ]);
+  });
+});
+
+describe("wordParts", () => {
+  it("keeps every space of both lines", () => {
+    const w = wordParts("x  = 1", "x  = 2");
+    expect(w.old).toEqual([{ text: "x  = ", changed: false }, { text: "1", changed: true }]);
+    expect(w.new).toEqual([{ text: "x  = ", changed: false }, { text: "2", changed: true }]);
   });
 });
 
@@ -108,6 +162,34 @@ describe("sameDeviation", () => {
     expect(sameDeviation(undefined, undefined)).toBe(true);
     expect(sameDeviation(undefined, 0)).toBe(false);
     expect(sameDeviation(Number.NaN, Number.NaN)).toBe(true);
+  });
+
+  it("compares at the precision the compare view shows (two significant digits)", () => {
+    expect(shownDeviation(3.3141e-7)).toBe("3.3e-7");
+    // Both print as 3.3 × 10⁻⁷: not a change a reader could see.
+    expect(sameDeviation(3.3141e-7, 3.2987e-7)).toBe(true);
+    expect(sameDeviation(3.3e-7, 3.4e-7)).toBe(false);
+    expect(sameDeviation(Number.POSITIVE_INFINITY, Number.POSITIVE_INFINITY)).toBe(true);
+  });
+});
+
+describe("deviationChanged", () => {
+  it("is false when both print alike and stand on the same side of the tolerance", () => {
+    expect(deviationChanged({ deviation: 3.3141e-7, tolerance: 1e-6 }, { deviation: 3.2987e-7, tolerance: 1e-6 })).toBe(false);
+    expect(deviationChanged({ deviation: 3.3141e-7 }, { deviation: 3.2987e-7 })).toBe(false);
+  });
+
+  it("is true when the printed value differs", () => {
+    expect(deviationChanged({ deviation: 3.3e-7, tolerance: 1e-6 }, { deviation: 5.1e-7, tolerance: 1e-6 })).toBe(true);
+    expect(deviationChanged({}, { deviation: 0 })).toBe(true);
+  });
+
+  it("is true when the deviation crosses the tolerance, even if it prints alike", () => {
+    // 9.96e-7 and 1.004e-6 both print as 1.0 × 10⁻⁶, but only the first is within 1e-6.
+    expect(shownDeviation(9.96e-7)).toBe(shownDeviation(1.004e-6));
+    expect(deviationChanged({ deviation: 9.96e-7, tolerance: 1e-6 }, { deviation: 1.004e-6, tolerance: 1e-6 })).toBe(true);
+    // A tolerance tightened between versions counts too.
+    expect(deviationChanged({ deviation: 3.3e-7, tolerance: 1e-6 }, { deviation: 3.3e-7, tolerance: 1e-7 })).toBe(true);
   });
 });
 
@@ -153,6 +235,14 @@ describe("diffVerdicts", () => {
     const x = d.claims[0];
     expect(x?.change).toBe("changed");
     expect(x?.change === "changed" && !x.statusChanged && x.deviationChanged).toBe(true);
+  });
+
+  it("does not call a deviation changed when both columns would read 3.3 × 10⁻⁷", () => {
+    const a: ReportLike = { verdict: "confirmed", claims: [{ id: "x", kind: "rest-point", status: "confirmed", deviation: 3.312e-7, tolerance: 1e-6, message: "" }] };
+    const b: ReportLike = { verdict: "confirmed", claims: [{ id: "x", kind: "rest-point", status: "confirmed", deviation: 3.287e-7, tolerance: 1e-6, message: "" }] };
+    const d = diffVerdicts(a, b);
+    expect(d.claims[0]?.change).toBe("unchanged");
+    expect(d.counts.changed).toBe(0);
   });
 
   it("treats a version without a report as one without claims", () => {

@@ -8,7 +8,7 @@ import { Notice } from "@/components/ui/Notice";
 import { PageHeader, Section } from "@/components/ui/PageHeader";
 import { onPage, pageUser } from "@/lib/authz";
 import { compareVersions } from "@/lib/decisions";
-import { getVenueById, isEditorOf, loadModelForReview } from "@/lib/venues";
+import { getVenueById, isEditorOf, latestSubmittedVersion, loadModelForReview } from "@/lib/venues";
 import { listVersions } from "@/lib/versions";
 
 interface Props {
@@ -37,12 +37,13 @@ export default async function ComparePage({ params, searchParams }: Props) {
   const from = numberParam(sp.from) ?? Math.max(1, to - 1);
   const venue = m.venueId === null ? null : await getVenueById(m.venueId);
   const editsVenue = venue !== null && (await isEditorOf(me.userId, venue.id));
+  // A reviewer goes back to the review of the newest submitted version (the only one a review
+  // page exists for); with nothing submitted yet, to the model entry.
+  const submitted = venue !== null && m.ownerId !== me.userId && (editsVenue || me.role === "admin") ? await latestSubmittedVersion(venue.id, m.id) : null;
   const back =
-    m.ownerId === me.userId
-      ? { href: `/workspace/models/${m.slug}`, label: "← Model entry" }
-      : venue !== null && (editsVenue || me.role === "admin")
-        ? { href: `/workspace/venues/${venue.slug}/review/${m.slug}/v/${to}`, label: `← Review of version ${to}` }
-        : { href: "/workspace", label: "← Workspace" };
+    venue !== null && submitted !== null
+      ? { href: `/workspace/venues/${venue.slug}/review/${m.slug}/v/${submitted.number}`, label: `← Review of version ${submitted.number}` }
+      : { href: `/workspace/models/${m.slug}`, label: "← Model entry" };
   const known = new Set(versions.map((v) => v.number));
   const problem =
     versions.length < 2
