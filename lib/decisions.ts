@@ -54,8 +54,27 @@ async function oneAtATime<T>(fn: () => Promise<T>): Promise<T> {
   }
 }
 
+/** Names the choices as the decision form labels them (components/editor/labels.ts OUTCOME_WORDS). */
+export const OUTCOME_MISSING_MESSAGE = "Choose Verified, Changes requested or Declined.";
+export const DECISION_INCOMPLETE_MESSAGES = {
+  outcome: "Choose a decision before recording it.",
+  comment: "Write a comment for the authors before recording the decision.",
+  both: "Choose a decision and write a comment for the authors before recording it.",
+  other: "The decision could not be recorded as sent: see the marked fields.",
+} as const;
+
+/** One plain sentence for the whole form, from the fields that failed. */
+function incompleteMessage(paths: readonly string[]): string {
+  const outcome = paths.includes("/outcome");
+  const comment = paths.includes("/comment");
+  if (outcome && comment) return DECISION_INCOMPLETE_MESSAGES.both;
+  if (outcome) return DECISION_INCOMPLETE_MESSAGES.outcome;
+  if (comment) return DECISION_INCOMPLETE_MESSAGES.comment;
+  return DECISION_INCOMPLETE_MESSAGES.other;
+}
+
 export const decisionInputSchema = z.object({
-  outcome: z.enum(DECISION_OUTCOMES, { message: "Choose verified, changes-requested or declined." }),
+  outcome: z.enum(DECISION_OUTCOMES, { message: OUTCOME_MISSING_MESSAGE }),
   comment: z
     .string({ message: "Write a comment for the authors." })
     .trim()
@@ -131,7 +150,10 @@ async function decide(
   if (!mayRead) throw new NotFound("model");
 
   const parsed = decisionInputSchema.safeParse(input);
-  if (!parsed.success) throw new ValidationError("The decision has invalid fields.", zodDetails(parsed.error));
+  if (!parsed.success) {
+    const details = zodDetails(parsed.error);
+    throw new ValidationError(incompleteMessage(details.map((d) => d.path)), details);
+  }
   const fields = parsed.data;
 
   const v = fields.venue !== undefined ? await getVenueBySlug(fields.venue) : m2.venueId === null ? null : await getVenueById(m2.venueId);

@@ -101,8 +101,10 @@ describe("an editor reviews, requests changes, then verifies", () => {
     const page = await b.page();
     await signIn(page, "editor");
 
-    // Venues list, then the queue, filtered down to our model by its title.
-    await page.goto("/workspace/venues");
+    // Venues list (reached from the workspace sidebar), then the queue, filtered down to our model by its title.
+    await page.goto("/workspace");
+    await page.getByRole("navigation", { name: "Workspace" }).getByRole("link", { name: "Venues and queues" }).click();
+    await page.waitForURL("**/workspace/venues");
     await shoot(page, "venues");
     await page.getByRole("link", { name: "Open the queue" }).first().click();
     await page.waitForURL(`**/workspace/venues/${DEMO_VENUE.slug}`);
@@ -138,7 +140,8 @@ describe("an editor reviews, requests changes, then verifies", () => {
     // "Verified" is not offered while a claim is contradicted.
     expect(await page.getByRole("radio", { name: /Verified/ }).isDisabled()).toBe(true);
     await page.getByRole("button", { name: "Record decision" }).click();
-    await expect.poll(async () => page.getByTestId("decision-error").textContent()).toBe("The decision has invalid fields.");
+    await expect.poll(async () => page.getByTestId("decision-error").textContent()).toBe("Choose a decision and write a comment for the authors before recording it.");
+    expect(await page.locator("#decision-outcome-error").textContent()).toBe("Choose Verified, Changes requested or Declined.");
     await page.getByRole("radio", { name: /Changes requested/ }).check();
     await page.getByLabel("Comment for the authors").fill("The mixed herd is stable in the re-run: correct the stability of claim mixed-herd.");
     await page.getByRole("button", { name: "Record decision" }).click();

@@ -84,8 +84,8 @@ describe("decideAction", () => {
     const state = await review.decideAction({ venue: theVenue.slug, slug: m.slug, number: 1 }, { status: "idle" }, form({ comment: "half a thought" }));
     expect(state).toEqual({
       status: "error",
-      message: "The decision has invalid fields.",
-      fieldErrors: { outcome: "Choose verified, changes-requested or declined." },
+      message: "Choose a decision before recording it.",
+      fieldErrors: { outcome: "Choose Verified, Changes requested or Declined." },
       values: { outcome: undefined, comment: "half a thought" },
     });
   });

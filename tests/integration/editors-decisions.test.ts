@@ -10,6 +10,7 @@ import {
   NO_VENUE_DECISION_MESSAGE,
   NOT_LATEST_MESSAGE,
   NOT_SUBMITTED_MESSAGE,
+  OUTCOME_MISSING_MESSAGE,
   OWN_MODEL_MESSAGE,
   decisionMail,
   latestDecidedVersion,
@@ -18,6 +19,7 @@ import {
 } from "@/lib/decisions";
 import { Conflict, Forbidden, NotFound, ValidationError } from "@/lib/errors";
 import { listCapturedMail } from "@/lib/captured-mail";
+import { OUTCOME_WORDS } from "@/components/editor/labels";
 import {
   NOT_EDITOR_MESSAGE,
   NOT_OWNER_SUBMIT_MESSAGE,
@@ -222,7 +224,15 @@ describe("recordDecision", () => {
     const badOutcome = await rejects(
       recordDecision(as(editor), { model: m.slug, number: 1 }, { outcome: "accepted", comment: "x" }),
     );
-    expect((badOutcome as ValidationError).problems).toEqual([{ path: "/outcome", message: "Choose verified, changes-requested or declined." }]);
+    expect((badOutcome as ValidationError).problems).toEqual([{ path: "/outcome", message: "Choose Verified, Changes requested or Declined." }]);
+    expect((badOutcome as ValidationError).message).toBe("Choose a decision before recording it.");
+    // The field message names the choices as the form labels them.
+    for (const word of Object.values(OUTCOME_WORDS)) expect(OUTCOME_MISSING_MESSAGE).toContain(word);
+    expect((empty as ValidationError).message).toBe("Write a comment for the authors before recording the decision.");
+    const neither = await rejects(recordDecision(as(editor), { model: m.slug, number: 1 }, { comment: "" }));
+    expect((neither as ValidationError).message).toBe("Choose a decision and write a comment for the authors before recording it.");
+    const badVenue = await rejects(recordDecision(as(editor), { model: m.slug, number: 1 }, { outcome: "declined", comment: "x", venue: 7 }));
+    expect((badVenue as ValidationError).message).toBe("The decision could not be recorded as sent: see the marked fields.");
     expect(await rejects(recordDecision(as(editor), { model: m.slug, number: 1 }, { outcome: "declined", comment: "x", venue: "no-such" }))).toBeInstanceOf(NotFound);
 
     const loose = await makeModel(author, null, { visibility: "public" });
