@@ -89,7 +89,7 @@ export function TokenManager({ tokens, origin, create, revoke }: TokenManagerPro
             </Button>
           </div>
           <p className="text-sm text-ink-soft">Use it as a bearer token, for example:</p>
-          <pre className="overflow-x-auto rounded bg-surface p-3 font-mono text-xs">
+          <pre role="region" aria-label="Example request with the token" tabIndex={0} className="overflow-x-auto rounded bg-surface p-3 font-mono text-xs">
             {`curl -H "Authorization: Bearer ${fresh.token}" \\\n     -H "Content-Type: application/json" \\\n     --data-binary @model.json \\\n     ${origin}/api/v1/models/<slug>/versions`}
           </pre>
         </div>

@@ -5,6 +5,7 @@
  */
 import Link from "next/link";
 import useSWR from "swr";
+import { ScrollRegion, STACK_BODY, STACK_CELL, STACK_HEAD, STACK_ROW, STACK_TABLE } from "@/components/report/stacked-table";
 import type { ModelView } from "@/lib/types/deposit";
 import { fetchJson } from "./api-client";
 import { isPending, JobState } from "./JobState";
@@ -29,10 +30,10 @@ export function VersionList({ initial }: { initial: ModelView }) {
           Could not refresh the status ({error instanceof Error ? error.message : "unknown error"}); retrying.
         </p>
       )}
-      <div className="overflow-x-auto">
-        <table className="w-full border-collapse text-left text-sm" data-testid="version-list">
+      <ScrollRegion label="Versions">
+        <table className={STACK_TABLE} data-testid="version-list">
           <caption className="sr-only">Versions of this model, newest first</caption>
-          <thead>
+          <thead className={STACK_HEAD}>
             <tr className="border-b border-line-strong text-xs uppercase tracking-wide text-ink-faint">
               <th scope="col" className="py-2 pr-4 font-semibold">Version</th>
               <th scope="col" className="py-2 pr-4 font-semibold">Uploaded</th>
@@ -40,22 +41,23 @@ export function VersionList({ initial }: { initial: ModelView }) {
               <th scope="col" className="py-2 font-semibold">Claims</th>
             </tr>
           </thead>
-          <tbody>
+          <tbody className={STACK_BODY}>
             {versions.map((v) => (
-              <tr key={v.id} className="border-b border-line align-top last:border-0" data-version={v.number}>
-                <th scope="row" className="py-2 pr-4 font-normal">
+              <tr key={v.id} className={STACK_ROW} data-version={v.number}>
+                {/* The title gets a reading width, so it does not break one word per line. */}
+                <th scope="row" className="min-w-[12rem] py-2 pr-4 font-normal max-sm:block max-sm:min-w-0 max-sm:p-0">
                   <Link className="rp-link font-semibold" href={`/workspace/models/${initial.slug}/v/${v.number}`}>
                     v{v.number}
                   </Link>
                   <span className="block text-xs text-ink-faint">{v.title}</span>
                 </th>
-                <td className="py-2 pr-4 whitespace-nowrap">
+                <td className={`py-2 pr-4 whitespace-nowrap max-sm:order-3 max-sm:text-xs max-sm:text-ink-soft ${STACK_CELL}`} data-label="Uploaded">
                   <time dateTime={v.createdAt}>{new Date(v.createdAt).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" })} UTC</time>
                 </td>
-                <td className="py-2 pr-4" data-testid={`version-${v.number}-state`}>
+                <td className={`py-2 pr-4 ${STACK_CELL}`} data-label="Verification" data-testid={`version-${v.number}-state`}>
                   <JobState job={v.job} verdict={v.verdict} />
                 </td>
-                <td className="py-2 text-ink-soft">
+                <td className={`py-2 text-ink-soft ${STACK_CELL}`} data-label="Claims">
                   {v.counts === null
                     ? "—"
                     : `${v.counts.confirmed} confirmed, ${v.counts.contradicted} contradicted, ${v.counts.inconclusive} inconclusive`}
@@ -64,7 +66,7 @@ export function VersionList({ initial }: { initial: ModelView }) {
             ))}
           </tbody>
         </table>
-      </div>
+      </ScrollRegion>
     </div>
   );
 }

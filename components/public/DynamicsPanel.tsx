@@ -7,7 +7,7 @@ export function DynamicsPanel({ view }: { view: DynamicsView }) {
   return (
     <div className="space-y-3" data-testid="dynamics" data-kind={view.kind}>
       <p className="font-medium">{view.name}</p>
-      <div className="space-y-2 overflow-x-auto rounded-lg border border-line bg-surface px-4 py-3">
+      <div role="region" aria-label="Equations of the dynamics" tabIndex={0} className="space-y-2 overflow-x-auto rounded-lg border border-line bg-surface px-4 py-3">
         {view.equations.map((eq, i) => (
           <p key={i} className="pt-1">
             <Formula parts={eq} />

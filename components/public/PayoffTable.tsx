@@ -57,7 +57,7 @@ export function PayoffTable({ view }: { view: PayoffTableView }) {
           ))}
         </dl>
       )}
-      <div className="overflow-x-auto rounded-lg border border-line">
+      <div role="region" aria-label="Payoff table" tabIndex={0} className="overflow-x-auto rounded-lg border border-line">
         <table className="min-w-full border-collapse text-sm" data-testid="payoff-table">
           <caption className="sr-only">{view.reading}</caption>
           <thead className="bg-sunken">

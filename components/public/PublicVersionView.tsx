@@ -266,7 +266,7 @@ export function PublicVersionView({ data, modelPage }: { data: PublicVersion; mo
             </div>
             <details>
               <summary className="cursor-pointer font-medium text-tide">BibTeX</summary>
-              <pre className="mt-2 overflow-x-auto rounded-lg border border-line bg-sunken p-3 font-mono text-2xs">{bibtex}</pre>
+              <pre role="region" aria-label="BibTeX entry" tabIndex={0} className="mt-2 overflow-x-auto rounded-lg border border-line bg-sunken p-3 font-mono text-2xs">{bibtex}</pre>
             </details>
             <p className="font-mono text-2xs break-all text-ink-faint">SHA-256 {version.specSha256}</p>
           </section>

@@ -3,6 +3,7 @@ import type { Claim, ClaimResult } from "@/lib/engine/types";
 import { claimKindLabel } from "./format";
 import { Sci } from "./Sci";
 import { StatusMark } from "./StatusMark";
+import { ScrollRegion, STACK_BODY, STACK_CELL, STACK_HEAD, STACK_ROW, STACK_TABLE } from "./stacked-table";
 
 export interface ClaimsTableProps {
   claims: readonly ClaimResult[];
@@ -17,48 +18,44 @@ export function ClaimsTable({ claims, specClaims, caption = "Claims" }: ClaimsTa
     return <p className="text-sm text-ink-faint">No claim was checked.</p>;
   }
   return (
-    <div className="overflow-x-auto">
-      <table className="w-full border-collapse text-left text-sm" data-testid="claims-table">
+    <ScrollRegion label={caption}>
+      <table className={STACK_TABLE} data-testid="claims-table">
         <caption className="sr-only">{caption}</caption>
-        <thead>
+        <thead className={STACK_HEAD}>
           <tr className="border-b border-line-strong text-xs uppercase tracking-wide text-ink-faint">
             <th scope="col" className="py-2 pr-4 font-semibold">Claim</th>
-            <th scope="col" className="py-2 pr-4 font-semibold">Kind</th>
             <th scope="col" className="py-2 pr-4 font-semibold">Status</th>
             <th scope="col" className="py-2 pr-4 font-semibold">Deviation</th>
-            <th scope="col" className="py-2 font-semibold">What the engine found</th>
+            <th scope="col" className="py-2 pr-4 font-semibold">What the engine found</th>
+            <th scope="col" className="py-2 font-semibold">Kind</th>
           </tr>
         </thead>
-        <tbody>
+        <tbody className={STACK_BODY}>
           {claims.map((c) => {
             const note = notes.get(c.id);
             return (
-              <tr
-                key={c.id}
-                id={`claim-${c.id}`}
-                data-status={c.status}
-                className="border-b border-line align-top last:border-0"
-              >
-                <th scope="row" className="min-w-[9rem] py-2 pr-4 font-mono text-xs font-normal break-words">
+              <tr key={c.id} id={`claim-${c.id}`} data-status={c.status} className={STACK_ROW}>
+                {/* On a phone the card opens with the status, then says which claim it is. */}
+                <th scope="row" className={`min-w-[9rem] py-2 pr-4 font-mono text-xs font-normal break-words max-sm:order-2 max-sm:min-w-0 ${STACK_CELL}`} data-label="Claim">
                   {c.id}
                 </th>
-                <td className="py-2 pr-4 whitespace-nowrap">{claimKindLabel(c.kind)}</td>
-                <td className="py-2 pr-4 whitespace-nowrap">
+                <td className={`py-2 pr-4 whitespace-nowrap max-sm:order-1 ${STACK_CELL}`} data-label="Status">
                   <StatusMark outcome={c.status} />
                 </td>
-                <td className="py-2 pr-4 whitespace-nowrap">
+                <td className={`py-2 pr-4 whitespace-nowrap max-sm:order-3 ${STACK_CELL}`} data-label="Deviation">
                   {c.deviation === undefined ? (
                     <span className="text-ink-faint" aria-label="no deviation">—</span>
                   ) : (
                     <Sci value={c.deviation} />
                   )}
                   {c.tolerance !== undefined && (
-                    <span className="block text-xs text-ink-faint">
+                    <span className="block text-xs text-ink-faint max-sm:ml-2 max-sm:inline">
                       tolerance <Sci value={c.tolerance} digits={1} />
                     </span>
                   )}
                 </td>
-                <td className="py-2">
+                {/* A reading width for the sentence, so it is never squeezed into a tall column. */}
+                <td className={`min-w-[18rem] py-2 pr-4 max-sm:order-4 max-sm:min-w-0 max-sm:before:hidden ${STACK_CELL}`} data-label="What the engine found">
                   <span>{c.message}</span>
                   {note !== undefined && note !== "" && (
                     <span className="mt-1 block text-xs text-ink-faint italic">
@@ -66,11 +63,14 @@ export function ClaimsTable({ claims, specClaims, caption = "Claims" }: ClaimsTa
                     </span>
                   )}
                 </td>
+                <td className={`py-2 whitespace-nowrap max-sm:order-5 max-sm:text-xs max-sm:text-ink-soft ${STACK_CELL}`} data-label="Kind">
+                  {claimKindLabel(c.kind)}
+                </td>
               </tr>
             );
           })}
         </tbody>
       </table>
-    </div>
+    </ScrollRegion>
   );
 }

@@ -1,5 +1,6 @@
 /** Every isolated rest point the engine found, with its support, linear stability and equilibrium tests. */
 import type { GameSpec, RestPointReport } from "@/lib/engine/types";
+import { ScrollRegion, STACK_BODY, STACK_CELL, STACK_HEAD, STACK_ROW, STACK_TABLE } from "./stacked-table";
 import { formatEigenvalues, formatNumber, isBimatrixState, STABILITY_LABELS, stateLabels } from "./format";
 
 export interface RestPointsTableProps {
@@ -82,10 +83,10 @@ export function RestPointsTable({ restPoints, game }: RestPointsTableProps) {
         ? game.populations.map((p) => `${p.name}: ${p.strategies.join(", ")}`).join("; ")
         : undefined;
   return (
-    <div className="overflow-x-auto">
-      <table className="w-full border-collapse text-left text-sm" data-testid="rest-points-table">
+    <ScrollRegion label="Rest points">
+      <table className={STACK_TABLE} data-testid="rest-points-table">
         <caption className="sr-only">Rest points of the replicator dynamics</caption>
-        <thead>
+        <thead className={STACK_HEAD}>
           <tr className="border-b border-line-strong text-xs uppercase tracking-wide text-ink-faint">
             <th scope="col" className="py-2 pr-4 font-semibold">
               State
@@ -100,37 +101,39 @@ export function RestPointsTable({ restPoints, game }: RestPointsTableProps) {
             <th scope="col" className="py-2 font-semibold">ESS</th>
           </tr>
         </thead>
-        <tbody>
+        <tbody className={STACK_BODY}>
           {restPoints.map((rp, i) => (
-            <tr key={i} className="border-b border-line align-top last:border-0">
-              <td className="py-2 pr-4">
+            <tr key={i} className={STACK_ROW}>
+              <td className={`py-2 pr-4 ${STACK_CELL}`} data-label={order === undefined ? "State" : `State (${order})`}>
                 <StateCell state={rp.state} game={game} />
               </td>
-              <td className="py-2 pr-4">{rp.support.join(", ")}</td>
-              <td className="py-2 pr-4">
+              <td className={`py-2 pr-4 ${STACK_CELL}`} data-label="Support">
+                {rp.support.join(", ")}
+              </td>
+              <td className={`py-2 pr-4 ${STACK_CELL}`} data-label="Stability">
                 <StabilityWord stability={rp.stability} />
               </td>
-              <td className="py-2 pr-4 font-mono text-xs tabular-nums">
+              <td className={`py-2 pr-4 font-mono text-xs tabular-nums ${STACK_CELL}`} data-label="Eigenvalues">
                 {rp.eigenvalues.length === 0 ? (
                   <span className="text-ink-faint">—</span>
                 ) : (
                   formatEigenvalues(rp.eigenvalues).map((e, j) => (
-                    <span key={j} className="block whitespace-nowrap">
+                    <span key={j} className="block whitespace-nowrap max-sm:ml-0 max-sm:inline max-sm:after:content-['_·_'] max-sm:last:after:content-none">
                       {e}
                     </span>
                   ))
                 )}
               </td>
-              <td className="py-2 pr-4">
+              <td className={`py-2 pr-4 ${STACK_CELL}`} data-label="Nash">
                 <YesNo value={rp.nash} />
               </td>
-              <td className="py-2">
+              <td className={`py-2 ${STACK_CELL}`} data-label="ESS">
                 <YesNo value={rp.ess} />
               </td>
             </tr>
           ))}
         </tbody>
       </table>
-    </div>
+    </ScrollRegion>
   );
 }
