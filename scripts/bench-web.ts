@@ -217,11 +217,11 @@ async function main(): Promise<void> {
     const { migrateDatabase } = await import("@/db/migrate");
     await migrateDatabase();
     const { depositPublicModel } = await import("@/tests/integration/readers-seed");
-    const meadowSpec = readFileSync(path.join(ROOT, "schemas/examples/meadow-foragers.json"), "utf8");
-    const { slug, ownerId } = await depositPublicModel([meadowSpec], {
-      title: "Meadow foragers: patch defence",
-      summary: "Three tactics over nectar patches; a fictional bumble forager.",
-      authors: [{ name: "Ada Example" }],
+    const duneSpec = readFileSync(path.join(ROOT, "schemas/examples/fog-dune-beetles.json"), "utf8");
+    const { slug, ownerId } = await depositPublicModel([duneSpec], {
+      title: "Mist beetles: where to stand in the fog",
+      summary: "Three dew-collecting sites on a fictional coastal dune.",
+      authors: [{ name: "Ilse Vandermeer" }],
     });
     console.log(`Seeded public model ${slug} in ${dataDir}`);
 
@@ -274,7 +274,7 @@ async function main(): Promise<void> {
       method: "POST",
       path: "/api/v1/check",
       headers: { "content-type": "application/json" },
-      body: meadowSpec,
+      body: duneSpec,
       // A fresh client address per request: this measures the engine path, not the per-client limit.
       setupRequest: (req) => {
         ip += 1;

@@ -33,7 +33,7 @@ function median(xs: number[]): number {
 async function benchTypicalSpec(): Promise<void> {
   // imported here, after the enumeration figures, so that their memory excludes the parser and schema validator
   const { verifySpecText } = await import("../lib/engine/verify");
-  const text = readFileSync(new URL("../schemas/examples/meadow-foragers.json", import.meta.url), "utf8");
+  const text = readFileSync(new URL("../schemas/examples/fog-dune-beetles.json", import.meta.url), "utf8");
   const spec = JSON.parse(text) as { claims: unknown[]; experiments: { samples?: number }[] };
   for (let i = 0; i < 20; i++) verifySpecText(text);
   const times: number[] = [];

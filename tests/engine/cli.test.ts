@@ -4,7 +4,7 @@ import { tmpdir } from "node:os";
 import path from "node:path";
 import { describe, expect, it } from "vitest";
 
-const example = "schemas/examples/meadow-foragers.json";
+const example = "schemas/examples/fog-dune-beetles.json";
 const dir = mkdtempSync(path.join(tmpdir(), "restpoint-cli-"));
 
 function cli(args: string[], input?: string): { status: number | null; stdout: string; stderr: string } {
@@ -39,9 +39,9 @@ describe("verify command line", () => {
   it("prints a readable summary without --json", () => {
     const r = cli([example]);
     expect(r.status).toBe(0);
-    expect(r.stdout).toMatch(/^Restpoint verification: Territory holding among meadow foragers/);
+    expect(r.stdout).toMatch(/^Restpoint verification: Fog basking on an imagined coastal dune/);
     expect(r.stdout).toMatch(/Verdict: CONFIRMED \(10 claims: 10 confirmed, 0 contradicted, 0 inconclusive\)/);
-    expect(r.stdout).toMatch(/Rest points of the replicator dynamics \(5\)/);
+    expect(r.stdout).toMatch(/Rest points of the replicator dynamics \(7\)/);
     expect(r.stdout).toMatch(/it is not a peer review/);
   });
 

@@ -65,7 +65,7 @@ describe("validateSpec: valid specs", () => {
   it("accepts the small specs and the published example", async () => {
     expect(validateSpec(base())).toEqual([]);
     expect(validateSpec(bimatrix())).toEqual([]);
-    const example = (await import("@/schemas/examples/meadow-foragers.json")).default;
+    const example = (await import("@/schemas/examples/fog-dune-beetles.json")).default;
     expect(validateSpec(example)).toEqual([]);
   });
 

@@ -6,7 +6,7 @@ import type { ClaimResult, Report } from "@/lib/engine/types";
 import { expectClose, seededRandom } from "../support/close";
 
 type Json = Record<string, unknown>;
-const exampleText = readFileSync("schemas/examples/meadow-foragers.json", "utf8");
+const exampleText = readFileSync("schemas/examples/fog-dune-beetles.json", "utf8");
 const example = JSON.parse(exampleText) as Json;
 const sha = (s: string): string => createHash("sha256").update(s).digest("hex");
 
@@ -46,24 +46,28 @@ describe("verifySpec: the report follows the contract", () => {
   });
 
   it("lists the replicator's rest points in lexicographic order with support names, stability, Nash and ESS", () => {
+    // Solved by hand: on each face the shares where every site in the support pays the same,
+    // e.g. inside Crest 3 - 4x1 - 2x3 = Lee 2 - 4x2 = Trough 3 - 4x3 gives (1/4, 1/4, 1/2).
     expect(report.restPoints?.map((p) => p.state)).toEqual([
       [1, 0, 0],
-      [0.857142857143, 0, 0.142857142857],
-      [0.666666666667, 0.333333333333, 0],
+      [0.625, 0.375, 0],
+      [0.333333333333, 0, 0.666666666667],
+      [0.25, 0.25, 0.5],
       [0, 1, 0],
+      [0, 0.375, 0.625],
       [0, 0, 1],
     ]);
-    const mixed = report.restPoints?.[2];
-    expect(mixed).toMatchObject({ support: ["Holder", "Sharer"], stability: "asymptotically-stable", nash: true, ess: true });
+    const mixed = report.restPoints?.[3];
+    expect(mixed).toMatchObject({ support: ["Crest", "Lee", "Trough"], stability: "asymptotically-stable", nash: true, ess: true });
     expect(mixed?.eigenvalues).toHaveLength(2);
   });
 
   it("reports each experiment's samples from 0 to the duration inclusive", () => {
-    expect(report.experiments.map((e) => e.id)).toEqual(["holders-rare", "holders-common", "sneakers-common"]);
+    expect(report.experiments.map((e) => e.id)).toEqual(["lee-crowded", "crest-crowded", "trough-crowded"]);
     for (const e of report.experiments) {
       expect(e.times).toHaveLength(201);
       expect(e.times[0]).toBe(0);
-      expect(e.times[200]).toBe(60);
+      expect(e.times[200]).toBe(40);
       expect(e.states).toHaveLength(201);
     }
   });
