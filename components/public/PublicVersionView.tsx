@@ -17,6 +17,7 @@ import { dynamicsLabel } from "./labels";
 import { PayoffTable } from "./PayoffTable";
 import { plotGameOf } from "./plot-game";
 import { RegisteredFigures } from "./RegisteredFigures";
+import { tryLede } from "./claim-changes";
 import { TryYourOwnValues } from "./TryYourOwnValues";
 
 const dateFormat = new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "long", year: "numeric", timeZone: "UTC" });
@@ -151,9 +152,9 @@ export function PublicVersionView({ data, modelPage }: { data: PublicVersion; mo
             <Block
               id="try"
               title="Try your own values"
-              lede="Change the parameters, the starting shares or the durations, and the server re-runs the model for you. Nothing you enter is stored."
+              lede={tryLede(spec)}
             >
-              <TryYourOwnValues specText={data.specText} />
+              <TryYourOwnValues specText={data.specText} registeredClaims={report?.claims} />
             </Block>
           )}
         </div>

@@ -62,9 +62,10 @@ export function RegistryResults({ result }: { result: RegistryPage }) {
                 <dd className="text-ink">{dynamicsLabel(e.dynamicsKind)}</dd>
               </div>
               <div className="flex gap-1">
-                <dt>Version:</dt>
-                <dd className="text-ink">
-                  {e.latestVersion}, {dateFormat.format(new Date(e.updatedAt))}
+                {/* Said in words: "Version: 1, 2 Dec" read as versions 1 and 2. */}
+                <dt className="sr-only">Newest version</dt>
+                <dd className="text-ink" data-testid="registry-version">
+                  Version {e.latestVersion} · deposited <time dateTime={e.updatedAt}>{dateFormat.format(new Date(e.updatedAt))}</time>
                 </dd>
               </div>
               {e.doi !== null && (

@@ -8,7 +8,9 @@
 import { useMemo, useRef, useState, type FormEvent } from "react";
 import { ExperimentFigures } from "@/components/plots";
 import { RestPointsTable } from "@/components/report";
+import { StatusMark } from "@/components/report/StatusMark";
 import type { ClaimResult, ModelSpec, Report, SpecError, State } from "@/lib/engine/types";
+import { claimChanges } from "./claim-changes";
 import { plotGameOfSpec } from "./plot-game";
 
 interface ExperimentFields {
@@ -88,7 +90,8 @@ function summary(claims: readonly ClaimResult[]): string {
   return parts.length === 0 ? "" : `With your values the model's claims come out as: ${parts.join(", ")}.`;
 }
 
-export function TryYourOwnValues({ specText }: { specText: string }) {
+/** `registeredClaims`: the claims of the registered report, to say which ones the reader's values changed. */
+export function TryYourOwnValues({ specText, registeredClaims }: { specText: string; registeredClaims?: readonly ClaimResult[] }) {
   const original = useMemo(() => JSON.parse(specText) as ModelSpec, [specText]);
   const [fields, setFields] = useState<Fields>(() => fieldsOf(original));
   const [errors, setErrors] = useState<Record<string, string[]>>({});
@@ -379,6 +382,9 @@ export function TryYourOwnValues({ specText }: { specText: string }) {
             </p>
             {summary(phase.report.claims) !== "" && <p className="text-sm text-ink-soft">{summary(phase.report.claims)}</p>}
           </div>
+          {registeredClaims !== undefined && phase.report.claims.length > 0 && (
+            <ClaimChanges changes={claimChanges(registeredClaims, phase.report.claims)} />
+          )}
           {plotGame !== null && (
             <ExperimentFigures game={plotGame} experiments={phase.report.experiments} restPoints={phase.report.restPoints ?? []} />
           )}
@@ -390,6 +396,38 @@ export function TryYourOwnValues({ specText }: { specText: string }) {
           )}
         </div>
       )}
+    </div>
+  );
+}
+
+/** Which claims came out differently from the registered report, with the engine's sentence for each. */
+function ClaimChanges({ changes }: { changes: ReturnType<typeof claimChanges> }) {
+  if (changes.length === 0) {
+    return (
+      <p className="text-sm" data-testid="own-claim-changes">
+        Every claim has the same status as in the registered report.
+      </p>
+    );
+  }
+  return (
+    <div className="flex flex-col gap-2" data-testid="own-claim-changes">
+      <h3 className="text-base font-semibold">
+        {changes.length === 1 ? "1 claim changed status" : `${changes.length} claims changed status`} compared with the registered report
+      </h3>
+      <ul className="flex flex-col gap-2">
+        {changes.map((c) => (
+          <li key={c.id} className="rounded-[var(--radius-control)] border border-line bg-surface px-3 py-2 text-sm" data-claim={c.id} data-from={c.from ?? "none"} data-to={c.to}>
+            <p className="flex flex-wrap items-center gap-x-2 gap-y-1">
+              <span className="font-mono text-xs break-all">{c.id}</span>
+              {c.from === null ? <span className="text-ink-faint">not in the registered report</span> : <StatusMark outcome={c.from} />}
+              <span aria-hidden="true">→</span>
+              <span className="sr-only">now</span>
+              <StatusMark outcome={c.to} />
+            </p>
+            <p className="mt-1 text-ink-soft">{c.message}</p>
+          </li>
+        ))}
+      </ul>
     </div>
   );
 }
