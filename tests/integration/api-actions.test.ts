@@ -111,7 +111,7 @@ describe("updateModelAction and submitVersionAction", () => {
     const slug = (redirects.at(-1) ?? "").split("/")[3]?.split("?")[0] ?? "";
     const { addVersion } = await import("@/lib/versions");
     const { readFileSync } = await import("node:fs");
-    await addVersion(slug, readFileSync("schemas/examples/meadow-foragers.json", "utf8"), { id: owner.id, role: "author" });
+    await addVersion(slug, readFileSync("schemas/examples/fog-dune-beetles.json", "utf8"), { id: owner.id, role: "author" });
     expect(await actions.submitVersionAction(slug, 1)).toEqual({
       ok: false,
       message: "Choose the venue in the model entry before submitting a version.",

@@ -9,7 +9,7 @@ import { depositPublicModel } from "./readers-seed";
 
 type Handler = (req: Request, ctx: { params: Promise<{ slug: string; number: string }> }) => Promise<Response>;
 
-const specText = readFileSync("schemas/examples/meadow-foragers.json", "utf8");
+const specText = readFileSync("schemas/examples/fog-dune-beetles.json", "utf8");
 let GET: Handler;
 let slug = "";
 let ownerId = "";
@@ -17,7 +17,7 @@ let ownerId = "";
 beforeAll(async () => {
   await setUpDatabase();
   GET = (await import("@/app/api/v1/models/[slug]/versions/[number]/report/route")).GET as Handler;
-  ({ slug, ownerId } = await depositPublicModel([specText], { title: "Cached meadow" }));
+  ({ slug, ownerId } = await depositPublicModel([specText], { title: "Cached dunes" }));
 }, 180_000);
 
 afterAll(removeTempDir);
@@ -71,10 +71,10 @@ describe("the report API's cache", () => {
     const { updateModel } = await import("@/lib/models");
     expect((await report()).status).toBe(200);
     expect(cachedReportCount()).toBe(1);
-    await updateModel(slug, { id: ownerId, role: "author" }, { title: "Cached meadow", visibility: "private" });
+    await updateModel(slug, { id: ownerId, role: "author" }, { title: "Cached dunes", visibility: "private" });
     expect(cachedReportCount()).toBe(0);
     expect((await report()).status).toBe(404);
-    await updateModel(slug, { id: ownerId, role: "author" }, { title: "Cached meadow", visibility: "public" });
+    await updateModel(slug, { id: ownerId, role: "author" }, { title: "Cached dunes", visibility: "public" });
     expect((await report()).status).toBe(200);
   });
 

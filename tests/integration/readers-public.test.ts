@@ -5,7 +5,7 @@ import { depositPublicModel } from "./readers-seed";
 
 type Handler = (req: Request, ctx: { params: Promise<Record<string, string>> }) => Promise<Response>;
 
-const specText = readFileSync("schemas/examples/meadow-foragers.json", "utf8");
+const specText = readFileSync("schemas/examples/fog-dune-beetles.json", "utf8");
 let publicSlug = "";
 let privateSlug = "";
 let publicOwner = "";
@@ -20,11 +20,11 @@ beforeAll(async () => {
   routes["citation.txt"] = (await import(`${base}/citation.txt/route`)).GET as Handler;
   routes.csv = (await import(`${base}/experiments/[file]/route`)).GET as Handler;
   ({ slug: publicSlug, ownerId: publicOwner } = await depositPublicModel([specText], {
-    title: "Meadow foragers: patch defence",
-    authors: [{ name: "Ada Example" }, { name: "Reef & Kelp Lab" }],
-    doi: "10.5555/meadow.2026_7",
+    title: "Mist beetles: where to stand in the fog",
+    authors: [{ name: "Ilse Vandermeer" }, { name: "Reef & Kelp Lab" }],
+    doi: "10.5555/dunes.2026_7",
   }));
-  privateSlug = (await depositPublicModel([specText], { title: "Hidden draft of the meadow model", visibility: "private" })).slug;
+  privateSlug = (await depositPublicModel([specText], { title: "Hidden draft of the mist beetle model", visibility: "private" })).slug;
 }, 180_000);
 
 afterAll(removeTempDir);
@@ -41,7 +41,7 @@ const downloads: [string, string | undefined][] = [
   ["report.json", undefined],
   ["citation.bib", undefined],
   ["citation.txt", undefined],
-  ["csv", "holders-rare.csv"],
+  ["csv", "lee-crowded.csv"],
 ];
 
 describe("public downloads", () => {
@@ -70,28 +70,28 @@ describe("public downloads", () => {
     expect(res.status).toBe(200);
     const report = (await res.json()) as { format: string; experiments: { id: string }[]; verdict: string };
     expect(report.format).toBe("restpoint/report@1");
-    expect(report.experiments.map((e) => e.id)).toEqual(["holders-rare", "holders-common", "sneakers-common"]);
+    expect(report.experiments.map((e) => e.id)).toEqual(["lee-crowded", "crest-crowded", "trough-crowded"]);
   });
 
   it("serves each run as CSV with a header row and every sample", async () => {
-    const res = await call("csv", publicSlug, "1", "holders-rare.csv");
+    const res = await call("csv", publicSlug, "1", "lee-crowded.csv");
     expect(res.status).toBe(200);
     expect(res.headers.get("content-type")).toBe("text/csv; charset=utf-8; header=present");
-    expect(res.headers.get("content-disposition")).toBe(`attachment; filename="${publicSlug}-v1-holders-rare.csv"`);
+    expect(res.headers.get("content-disposition")).toBe(`attachment; filename="${publicSlug}-v1-lee-crowded.csv"`);
     const text = await res.text();
     const lines = text.split("\r\n");
-    expect(lines[0]).toBe("time,Holder,Sharer,Sneaker");
+    expect(lines[0]).toBe("time,Crest,Lee,Trough");
     // 201 samples (the spec's count), then the final CRLF leaves one empty string.
     expect(lines).toHaveLength(1 + 201 + 1);
-    expect(lines[1]).toBe("0,0.05,0.9,0.05");
+    expect(lines[1]).toBe("0,0.1,0.8,0.1");
     const last = (lines[201] ?? "").split(",").map(Number);
-    expect(last[0]).toBe(60);
+    expect(last[0]).toBe(40);
     // Each row is a state: shares sum to 1 (common practice: the replicator dynamics keeps the simplex).
     expect(Math.abs((last[1] ?? 0) + (last[2] ?? 0) + (last[3] ?? 0) - 1)).toBeLessThan(1e-8);
   });
 
   it("answers an unknown run or a file name without .csv with 404", async () => {
-    for (const file of ["nope.csv", "holders-rare", "holders-rare.json"]) {
+    for (const file of ["nope.csv", "lee-crowded", "lee-crowded.json"]) {
       const res = await call("csv", publicSlug, "1", file);
       expect(res.status).toBe(404);
       expect(await res.json()).toEqual({ error: { code: "not_found", message: "This version has no run by that name." } });
@@ -102,13 +102,13 @@ describe("public downloads", () => {
     const { specSha256 } = (await (await call("report.json", publicSlug)).json()) as { specSha256: string };
     const bib = await (await call("citation.bib", publicSlug)).text();
     expect(bib.startsWith(`@misc{restpoint-${publicSlug}-v1,`)).toBe(true);
-    expect(bib).toContain("title = {{Territory holding among meadow foragers: a three-tactic contest over nectar patches}}");
-    expect(bib).toContain("author = {Ada Example and Reef \\& Kelp Lab}");
+    expect(bib).toContain("title = {{Fog basking on an imagined coastal dune: where mist beetles stand at dawn}}");
+    expect(bib).toContain("author = {Ilse Vandermeer and Reef \\& Kelp Lab}");
     expect(bib).toContain(`specification SHA-256 ${specSha256}`);
     const txt = await (await call("citation.txt", publicSlug)).text();
-    expect(txt).toContain("Ada Example and Reef & Kelp Lab (");
+    expect(txt).toContain("Ilse Vandermeer and Reef & Kelp Lab (");
     expect(txt).toContain(`Specification SHA-256: ${specSha256}.`);
-    expect(txt).toContain("https://doi.org/10.5555/meadow.2026_7");
+    expect(txt).toContain("https://doi.org/10.5555/dunes.2026_7");
   });
 });
 
@@ -158,7 +158,7 @@ describe("a private or unknown model is not found, the same way, on every public
 
   it("the registry API and the sitemap list the public model only", async () => {
     const { GET } = await import("@/app/api/v1/registry/route");
-    const res = await GET(new Request("http://localhost/api/v1/registry?q=meadow"));
+    const res = await GET(new Request("http://localhost/api/v1/registry?q=beetle"));
     const body = (await res.json()) as { entries: { slug: string }[]; total: number };
     expect(body.entries.map((e) => e.slug)).toEqual([publicSlug]);
     expect(body.total).toBe(1);
