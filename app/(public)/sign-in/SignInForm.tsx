@@ -56,8 +56,11 @@ export function SignInForm({ next, demoAccounts }: { next: string; demoAccounts:
               <li key={a.email} className="flex items-center justify-between gap-3">
                 <span className="flex min-w-0 flex-col">
                   <span className="text-sm font-semibold capitalize">{a.role}</span>
-                  <span className="truncate font-mono text-xs text-ink-soft">
-                    {a.email} / {a.password}
+                  {/* Each on its own line and wrapped, never cut: people copy them by hand. */}
+                  <span className="font-mono text-xs break-all text-ink-soft">{a.email}</span>
+                  <span className="font-mono text-xs break-all text-ink-soft">
+                    <span className="sr-only">password </span>
+                    {a.password}
                   </span>
                 </span>
                 <button
