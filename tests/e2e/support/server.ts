@@ -77,7 +77,14 @@ export async function startApp(distDir: string, extraEnv: Record<string, string>
   });
   child.stdout?.on("data", (d: Buffer) => (output += d.toString()));
   child.stderr?.on("data", (d: Buffer) => (output += d.toString()));
-  await waitUntilUp(`${baseUrl}/`, child, () => output, 60_000);
+  try {
+    await waitUntilUp(`${baseUrl}/`, child, () => output, 60_000);
+  } catch (e) {
+    // A server that never came up must not outlive the failed run.
+    child.kill("SIGKILL");
+    rmSync(dataDir, { recursive: true, force: true });
+    throw e;
+  }
   return {
     baseUrl,
     dataDir,
