@@ -14,27 +14,23 @@ import { publicContentChanged } from "@/lib/public-cache";
 import { specSha256 } from "@/lib/engine/canonical";
 import type { GameSpec, ModelSpec, SpecError } from "@/lib/engine/types";
 import { validateSpec } from "@/lib/engine/validate";
+import { verifySpecText } from "@/lib/engine/verify";
 import { NotFound, PayloadTooLarge, ValidationError } from "@/lib/errors";
 import { enqueueJob, withBusyRetry } from "@/lib/jobs";
-import { lineAndColumnAt, lineOfPointer, pointerLines } from "@/lib/json-lines";
+import { lineOfPointer, pointerLines } from "@/lib/json-lines";
 import { loadEditableModel, loadVisibleModel, loadVisibleVersion, summarizeVersions, type VersionRow } from "@/lib/models";
 import { sanitizeFileName, SPEC_MAX_BYTES, storeBytes } from "@/lib/storage";
 import { removeUnreferenced, toFileInfo } from "@/lib/files";
 import type { AddVersionResult, VersionSummary, VersionView, Viewer } from "@/lib/types/deposit";
 import { pokeWorker } from "@/lib/worker";
 
-/** A spec that is not JSON: one problem at the root, with the line where parsing stopped when the parser says. */
-export function notJsonError(text: string, error: unknown): ValidationError {
-  const reason = error instanceof Error ? error.message : String(error);
-  const at = /at position (\d+)/.exec(reason);
-  const problem: SpecError = { path: "", message: `Not valid JSON: ${reason}.` };
-  if (at?.[1] !== undefined) {
-    const { line, column } = lineAndColumnAt(text, Number(at[1]));
-    problem.line = line;
-    problem.message = `Not valid JSON (line ${line}, column ${column}): ${reason}.`;
-  } else if (/end of JSON input/.test(reason)) {
-    problem.line = text.split("\n").length;
-  }
+/**
+ * A spec that is not JSON: one problem at the root, worded and placed (line) by the engine's
+ * own invalid report for unreadable text, so an upload and POST /api/v1/check say the same.
+ * Call it only for text that failed to parse (verifySpecText would otherwise run the spec).
+ */
+export function notJsonError(text: string): ValidationError {
+  const [problem = { path: "", message: "The file is not valid JSON." }] = verifySpecText(text).errors ?? [];
   return new ValidationError("The specification is not valid JSON; nothing was stored.", [problem]);
 }
 
@@ -57,9 +53,10 @@ export function checkSpecText(specText: string): ModelSpec {
   }
   let parsed: unknown;
   try {
-    parsed = JSON.parse(specText);
-  } catch (e) {
-    throw notJsonError(specText, e);
+    // A leading byte order mark is allowed, as the engine (which re-runs this same text) allows it.
+    parsed = JSON.parse(specText.charCodeAt(0) === 0xfeff ? specText.slice(1) : specText);
+  } catch {
+    throw notJsonError(specText);
   }
   const errors = validateSpec(parsed);
   if (errors.length > 0) {

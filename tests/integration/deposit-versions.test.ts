@@ -8,6 +8,7 @@ import { auditEvent, file, job, version } from "@/db/schema";
 import { ALPINE_BUMBLEBEES, HARBOUR_SEALS } from "@/lib/demo/models";
 import { Forbidden, NotFound, PayloadTooLarge, ValidationError } from "@/lib/errors";
 import { claimNext, completeJob } from "@/lib/jobs";
+import { verifySpecText } from "@/lib/engine/verify";
 import { createModel, getModel, listModelsForOwner, updateModel } from "@/lib/models";
 import { getReportForVersion } from "@/lib/reports";
 import { blobPath } from "@/lib/storage";
@@ -150,10 +151,22 @@ describe("versions", () => {
     expect((e as ValidationError).message).toBe("The specification is not valid JSON; nothing was stored.");
     const [problem] = (e as ValidationError).problems;
     expect(problem).toMatchObject({ path: "", line: 4 });
-    expect(problem?.message).toMatch(/^Not valid JSON \(line 4, column 1\): /);
+    // The engine's own wording (lib/engine/verify.ts), not the JavaScript parser's.
+    expect(problem?.message).toBe('The file is not valid JSON at line 4, column 1, near "}\\n".');
     const truncated = await caught(addVersion(m.id, '{\n"a": [1,\n', alice));
-    expect((truncated as ValidationError).problems[0]).toMatchObject({ path: "", line: 3 });
+    expect((truncated as ValidationError).problems[0]).toEqual({ path: "", line: 3, message: "The file is not valid JSON (the text ends too early)." });
+    // Said the same way as POST /api/v1/check says it (verifySpecText's invalid report).
+    const oops = '{"format": "restpoint/model@1", oops: 1}';
+    const viaUpload = await caught(addVersion(m.id, oops, alice));
+    expect((viaUpload as ValidationError).problems).toEqual(verifySpecText(oops).errors);
+    expect((viaUpload as ValidationError).problems[0]?.message).toBe('The file is not valid JSON at line 1, column 33, near "oops: 1}".');
     expect(await tableCounts()).toEqual(before);
+  });
+
+  it("accepts a spec that starts with a byte order mark, as the engine that re-runs it does", async () => {
+    const m = await createModel(alice, { title: "Marked" });
+    const r = await addVersion(m.id, "\uFEFF" + specText({ ...ALPINE_BUMBLEBEES, title: "Marked" }), alice);
+    expect(r.version.number).toBe(1);
   });
 
   it("refuses a spec that breaks the format, listing each problem with its pointer and line, and stores nothing", async () => {
