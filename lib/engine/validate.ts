@@ -226,15 +226,63 @@ function checkMatrix(rows: unknown[], path: string, r: number, c: number, what: 
   return ok;
 }
 
-/** Semantic rules beyond the schema, for a spec that already passed it. */
-function semanticErrors(spec: ModelSpec): SpecError[] {
+function experimentList(spec: ModelSpec): NonNullable<ModelSpec["experiments"]> {
+  return Array.isArray(spec.experiments) ? spec.experiments : [];
+}
+
+function claimList(spec: ModelSpec): ModelSpec["claims"] {
+  return Array.isArray(spec.claims) ? spec.claims : [];
+}
+
+/**
+ * Ids used twice among experiments and among claims (only entries that passed the schema are
+ * judged; any string id counts as taken). Returns where each experiment id is first defined.
+ */
+function checkIds(spec: ModelSpec, clean: (pointer: string) => boolean, out: SpecError[]): Map<string, number> {
+  const experimentIds = new Map<string, number>();
+  experimentList(spec).forEach((ex, i) => {
+    const id: unknown = (ex as { id?: unknown } | null)?.id;
+    if (typeof id !== "string") return;
+    if (experimentIds.has(id)) {
+      if (clean(`/experiments/${i}`)) out.push({ path: `/experiments/${i}/id`, message: `The experiment id "${id}" is used twice; ids must be unique.` });
+    } else experimentIds.set(id, i);
+  });
+  const claimIds = new Set<string>();
+  claimList(spec).forEach((c, i) => {
+    const id: unknown = (c as { id?: unknown } | null)?.id;
+    if (typeof id !== "string") return;
+    if (claimIds.has(id) && clean(`/claims/${i}`)) out.push({ path: `/claims/${i}/id`, message: `The claim id "${id}" is used twice; ids must be unique.` });
+    claimIds.add(id);
+  });
+  return experimentIds;
+}
+
+/** Every part of the spec passed the schema (the predicate used once the whole spec did). */
+const ALL_CLEAN = (): boolean => true;
+
+/**
+ * Semantic rules beyond the schema. `clean(pointer)` says whether the value at that pointer
+ * passed the schema with nothing wrong inside it; a rule runs only when every value it reads
+ * is clean, so a spec that failed the schema still gets the checks that are safe on the parts
+ * that passed (a claim's state summing to 1.2 beside a misspelled field elsewhere).
+ */
+function semanticErrors(spec: ModelSpec, clean: (pointer: string) => boolean = ALL_CLEAN): SpecError[] {
   const out: SpecError[] = [];
+  // A missing game is reported at the root (required), so its own pointer looks clean: check it is there.
+  const gameOk = clean("/game") && spec.game !== null && typeof spec.game === "object";
+  const paramsOk = clean("/parameters");
   const game = spec.game;
-  spec.authors?.forEach((a, i) => {
+  const authors = Array.isArray(spec.authors) ? spec.authors : [];
+  authors.forEach((a, i) => {
+    if (!clean(`/authors/${i}`)) return;
     if (a.orcid !== undefined && !orcidChecksumValid(a.orcid)) {
       out.push({ path: `/authors/${i}/orcid`, message: `The ORCID iD ${a.orcid} has a wrong check digit (ISO 7064 MOD 11-2); it is probably mistyped.` });
     }
   });
+  if (!gameOk) {
+    checkIds(spec, clean, out);
+    return out;
+  }
   let shapesOk: boolean;
   if (game.kind === "symmetric") {
     const n = game.strategies.length;
@@ -250,6 +298,7 @@ function semanticErrors(spec: ModelSpec): SpecError[] {
   const defined = new Set(Object.keys(spec.parameters ?? {}));
   const checkOverrides = (params: Parameters | undefined, base: string): boolean => {
     let ok = true;
+    if (!paramsOk) return false;
     for (const name of Object.keys(params ?? {})) {
       if (!defined.has(name)) {
         out.push({ path: `${base}/parameters/${pointerToken(name)}`, message: `"${name}" overrides a parameter the spec does not define; define it under "parameters" first.` });
@@ -259,10 +308,10 @@ function semanticErrors(spec: ModelSpec): SpecError[] {
     return ok;
   };
 
-  // Expressions: structure and parameter names, once per entry.
-  let exprOk = shapesOk;
+  // Expressions: structure and parameter names, once per entry (names need clean parameters).
+  let exprOk = shapesOk && paramsOk;
   const matrices: [unknown[], string][] = game.kind === "symmetric" ? [[game.payoffs, "/game/payoffs"]] : [[game.payoffs[0], "/game/payoffs/0"], [game.payoffs[1], "/game/payoffs/1"]];
-  for (const [rows, base] of matrices) {
+  for (const [rows, base] of paramsOk ? matrices : []) {
     rows.forEach((row, i) => {
       if (!Array.isArray(row)) return;
       row.forEach((entry, j) => {
@@ -279,20 +328,17 @@ function semanticErrors(spec: ModelSpec): SpecError[] {
     });
   }
 
-  const experimentIds = new Map<string, number>();
-  spec.experiments?.forEach((ex, i) => {
-    if (experimentIds.has(ex.id)) out.push({ path: `/experiments/${i}/id`, message: `The experiment id "${ex.id}" is used twice; ids must be unique.` });
-    else experimentIds.set(ex.id, i);
+  const experimentIds = checkIds(spec, clean, out);
+  experimentList(spec).forEach((ex, i) => {
+    if (!clean(`/experiments/${i}`)) return;
     checkState(ex.initial, `/experiments/${i}/initial`, game, out);
     checkOverrides(ex.parameters, `/experiments/${i}`);
   });
 
   const strategyNames = game.kind === "symmetric" ? game.strategies : [];
-  const claimIds = new Set<string>();
-  spec.claims.forEach((c, i) => {
+  claimList(spec).forEach((c, i) => {
     const base = `/claims/${i}`;
-    if (claimIds.has(c.id)) out.push({ path: `${base}/id`, message: `The claim id "${c.id}" is used twice; ids must be unique.` });
-    claimIds.add(c.id);
+    if (!clean(base)) return;
     checkOverrides(c.parameters, base);
     switch (c.kind) {
       case "rest-point":
@@ -309,13 +355,14 @@ function semanticErrors(spec: ModelSpec): SpecError[] {
       case "trajectory": {
         const ei = experimentIds.get(c.experiment);
         const ex = ei === undefined ? undefined : spec.experiments?.[ei];
-        if (ex === undefined) {
+        // An experiment that failed the schema may be the one meant: say nothing then.
+        if (ex === undefined && clean("/experiments")) {
           out.push({ path: `${base}/experiment`, message: `The claim refers to the experiment "${c.experiment}", which the spec does not define.` });
         }
         if (c.kind === "final-state") checkState(c.state, `${base}/state`, game, out);
         else {
           c.points.forEach((pt, j) => {
-            if (ex !== undefined && pt.t > ex.duration) {
+            if (ex !== undefined && ei !== undefined && clean(`/experiments/${ei}`) && pt.t > ex.duration) {
               out.push({ path: `${base}/points/${j}/t`, message: `The time ${pt.t} lies beyond the end of the experiment "${ex.id}" (duration ${ex.duration}).` });
             }
             checkState(pt.state, `${base}/points/${j}/state`, game, out);
@@ -342,11 +389,11 @@ function semanticErrors(spec: ModelSpec): SpecError[] {
   // Payoffs at every parameter set in use must be finite numbers.
   if (exprOk) {
     const sets: [Parameters | undefined, string][] = [[undefined, ""]];
-    spec.experiments?.forEach((ex) => {
-      if (ex.parameters !== undefined) sets.push([ex.parameters, ` with the parameters of experiment "${ex.id}"`]);
+    experimentList(spec).forEach((ex, i) => {
+      if (clean(`/experiments/${i}`) && ex.parameters !== undefined) sets.push([ex.parameters, ` with the parameters of experiment "${ex.id}"`]);
     });
-    spec.claims.forEach((c) => {
-      if (c.parameters !== undefined) sets.push([c.parameters, ` with the parameters of claim "${c.id}"`]);
+    claimList(spec).forEach((c, i) => {
+      if (clean(`/claims/${i}`) && c.parameters !== undefined) sets.push([c.parameters, ` with the parameters of claim "${c.id}"`]);
     });
     const failed = new Set<string>();
     for (const [params, where] of sets) {
@@ -374,8 +421,36 @@ export function validateSpec(input: unknown): SpecError[] {
     return [{ path: "", message: `The JSON is nested more than ${MAX_DEPTH} levels deep; a model spec never needs that, so it is refused.` }];
   }
   if (!validateSchema(input)) {
-    return dedupe(prune(validateSchema.errors ?? []).map((e) => describe(e, input)));
+    const raw = validateSchema.errors ?? [];
+    const schemaErrors = prune(raw).map((e) => describe(e, input));
+    // Semantic checks on the parts that passed, so every problem is reported in one round.
+    // Only an object can hold parts; a value with nothing clean gets the schema errors alone.
+    const failedAt = raw.map((e) => e.instancePath);
+    const clean = (pointer: string): boolean => !failedAt.some((p) => p === pointer || p.startsWith(`${pointer}/`));
+    const partial = input !== null && typeof input === "object" && !Array.isArray(input) ? semanticErrors(input as ModelSpec, clean) : [];
+    return byPointer(dedupe([...schemaErrors, ...partial]));
   }
   return dedupe(semanticErrors(input as unknown as ModelSpec));
+}
+
+/** Compares two JSON pointers token by token, array indices as numbers (so /claims/2 before /claims/10). */
+export function comparePointers(a: string, b: string): number {
+  const ta = a === "" ? [] : a.split("/").slice(1);
+  const tb = b === "" ? [] : b.split("/").slice(1);
+  for (let i = 0; i < Math.min(ta.length, tb.length); i++) {
+    const x = ta[i] ?? "";
+    const y = tb[i] ?? "";
+    if (x === y) continue;
+    const nx = /^\d+$/.test(x);
+    const ny = /^\d+$/.test(y);
+    if (nx && ny) return Number(x) - Number(y);
+    return x < y ? -1 : 1;
+  }
+  return ta.length - tb.length;
+}
+
+/** Errors in document order of their pointers; errors at one pointer keep their order (stable sort). */
+function byPointer(errors: SpecError[]): SpecError[] {
+  return [...errors].sort((a, b) => comparePointers(a.path, b.path));
 }
 

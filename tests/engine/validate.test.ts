@@ -208,3 +208,84 @@ describe("validateSpec runs in the browser too", () => {
     expect(seen.size).toBeGreaterThanOrEqual(4);
   });
 });
+
+describe("validateSpec: a spec that fails the schema still gets the safe semantic checks", () => {
+  // An invented scenario: grazing herds choosing between an upland and a lowland pasture.
+  function pasture(): Json {
+    return {
+      format: "restpoint/model@1",
+      title: "Upland or lowland grazing",
+      parameters: { g: 2, t: 1 },
+      game: { kind: "symmetric", strategies: ["Upland", "Lowland"], payoffs: [["g - t", "g"], [1, "g / 2"]] },
+      experiments: [{ id: "spring", initial: [0.3, 0.7], duration: 20 }],
+      claims: [
+        { id: "split", kind: "rest-point", state: [0.7, 0.5] },
+        { id: "uplands", kind: "final-state", experiment: "spring", state: [1, 0] },
+      ],
+    };
+  }
+
+  it("lists the schema error and a state summing to 1.2 in one round, ordered by pointer", () => {
+    const spec = edit(pasture(), (s) => {
+      (s.claims as Json[])[1] = { ...((s.claims as Json[])[1] as Json), colour: "green" };
+    });
+    const errors = validateSpec(spec);
+    expect(errors).toEqual([
+      { path: "/claims/0/state", message: "The shares of the state must sum to 1 (within 1e-9); they sum to 1.2." },
+      { path: "/claims/1/colour", message: '"colour" is not a field the format knows here; check its spelling or remove it.' },
+    ]);
+  });
+
+  it("checks only the parts that passed: nothing is said about a claim or a state that failed the schema", () => {
+    const spec = edit(pasture(), (s) => {
+      // A share above 1 fails the schema; the sum of that state is not judged again.
+      ((s.claims as Json[])[0] as Json).state = [1.5, -0.3];
+      (s.experiments as Json[])[0] = { id: "spring", initial: [0.5, 0.6], duration: 20 };
+      s.title = 7;
+    });
+    const paths = validateSpec(spec).map((e) => e.path);
+    expect(paths).toEqual(["/claims/0/state/0", "/claims/0/state/1", "/experiments/0/initial", "/title"]);
+    expect(validateSpec(spec).find((e) => e.path === "/experiments/0/initial")?.message).toBe(
+      "The shares of the state must sum to 1 (within 1e-9); they sum to 1.1.",
+    );
+  });
+
+  it("skips the checks that read a game that failed the schema, and still reports duplicate claim ids and ORCID check digits", () => {
+    const spec = edit(pasture(), (s) => {
+      (s.game as Json).strategies = ["Upland"]; // too few: the game fails the schema
+      (s.claims as Json[])[1] = { id: "split", kind: "rest-point", state: [0.5, 0.5] };
+      s.authors = [{ name: "R. Moorland", orcid: "0000-0002-1825-0098" }];
+    });
+    const errors = validateSpec(spec);
+    expect(errors.map((e) => e.path)).toEqual(["/authors/0/orcid", "/claims/1/id", "/game/strategies"]);
+    expect(errors[0]?.message).toBe("The ORCID iD 0000-0002-1825-0098 has a wrong check digit (ISO 7064 MOD 11-2); it is probably mistyped.");
+    expect(errors[1]?.message).toBe('The claim id "split" is used twice; ids must be unique.');
+  });
+
+  it("does not call an experiment missing when the one meant failed the schema", () => {
+    const spec = edit(pasture(), (s) => {
+      (s.experiments as Json[])[0] = { id: "spring", initial: [0.3, 0.7], duration: -1 };
+    });
+    const errors = validateSpec(spec);
+    expect(errors.map((e) => e.path)).toEqual(["/claims/0/state", "/experiments/0/duration"]);
+  });
+
+  it("reports a missing game once, without checking states against it", () => {
+    const spec = edit(pasture(), (s) => {
+      delete s.game;
+    });
+    expect(validateSpec(spec)).toEqual([{ path: "/game", message: 'The field "game" is required here but missing.' }]);
+  });
+
+  it("orders pointers by array index, not as text, and keeps each problem once", () => {
+    const spec = edit(pasture(), (s) => {
+      const claims = s.claims as Json[];
+      for (let i = 0; i < 10; i++) claims.push({ id: `c${i}`, kind: "rest-point", state: [0.5, 0.5] });
+      (claims[11] as Json).state = [0.9, 0.9];
+      (claims[2] as Json).typo = true;
+    });
+    const errors = validateSpec(spec);
+    expect(errors.map((e) => e.path)).toEqual(["/claims/0/state", "/claims/2/typo", "/claims/11/state"]);
+    expect(new Set(errors.map((e) => `${e.path} ${e.message}`)).size).toBe(errors.length);
+  });
+});
