@@ -1,7 +1,8 @@
 /**
  * Demo models of our own invention (fictional species and scenarios), deposited by the demo
- * author with one version each. The harbour-seal model carries a deliberately contradicted
- * claim, so the demo shows what a failed check looks like.
+ * author. The harbour-seal model carries a deliberately contradicted claim, so the demo shows
+ * what a failed check looks like; the public bumblebee model has named parameters, so a reader
+ * can re-run it with values of their own.
  *
  * Hook-in: add `{ name: "models", run: seedDemoModels }` to DEMO_STEPS in lib/demo/index.ts
  * after the accounts and venue steps.
@@ -10,10 +11,11 @@ import "server-only";
 import { and, eq } from "drizzle-orm";
 import { db } from "@/db/client";
 import { model } from "@/db/schema";
-import { createModel } from "@/lib/models";
+import { createModel, getModel, updateModel } from "@/lib/models";
 import type { ModelInput } from "@/lib/types/deposit";
 import { submitVersion } from "@/lib/venues";
 import { addVersion } from "@/lib/versions";
+import { demoAccount } from "./accounts";
 import type { DemoContext } from "./index";
 
 export interface DemoModel {
@@ -24,26 +26,31 @@ export interface DemoModel {
   toVenue: boolean;
 }
 
-const DEMO_AUTHOR = { name: "Ada Example", orcid: "0000-0002-1825-0097", affiliation: "Institute of Imaginary Meadows" };
+// The demo author account's own (invented) name. No ORCID iD: any well-formed iD would point at
+// a real ORCID record, and the demo must not attribute models to anyone real.
+const DEMO_AUTHOR = { name: demoAccount("author").name, affiliation: "Institute of Imaginary Meadows" };
 
 /**
  * Alpine bumblebees choosing between specialising on one flower species and visiting any.
- * Anti-coordination (a = 1, b = 4, c = 3, d = 2): the interior rest point x* = (b - d) /
- * ((b - d) + (c - a)) = 1/2 is stable (common practice: the 2x2 replicator closed form).
+ * Anti-coordination (a = 1, b = uncrowded = 4, c = 3, d = 3 - travel = 2): the interior rest
+ * point x* = (b - d) / ((b - d) + (c - a)) = (uncrowded - 3 + travel) / (uncrowded - 1 + travel)
+ * = 1/2 is stable (common practice: the 2x2 replicator closed form); a reader who raises
+ * uncrowded or travel sees the Specialist share rise, e.g. to 2/3 with uncrowded = 6.
  */
 export const ALPINE_BUMBLEBEES = {
   format: "restpoint/model@1",
   title: "Flower constancy in a fictional alpine bumblebee",
   summary:
-    "Fictional scenario. Workers of an imagined high-meadow bumblebee either stay constant to one flower species (Specialist) or visit whatever blooms (Generalist). Specialists do well among Generalists, who leave them the uncrowded flowers, and poorly among each other; the colony mix settles at half and half.",
+    "Fictional scenario. Workers of an imagined high-meadow bumblebee either stay constant to one flower species (Specialist) or visit whatever blooms (Generalist). Specialists do well among Generalists, who leave them the uncrowded flowers (worth uncrowded), and poorly among each other; two Generalists lose travel to flying between the same patches. The colony mix settles at half and half.",
   authors: [DEMO_AUTHOR],
   manuscript: { title: "Constancy pays when it is rare", year: 2026 },
+  parameters: { uncrowded: 4, travel: 1 },
   game: {
     kind: "symmetric",
     strategies: ["Specialist", "Generalist"],
     payoffs: [
-      [1, 4],
-      [3, 2],
+      [1, "uncrowded"],
+      [3, "3 - travel"],
     ],
   },
   experiments: [{ id: "few-specialists", initial: [0.1, 0.9], duration: 40, samples: 201 }],
@@ -67,7 +74,7 @@ export const HARBOUR_SEALS = {
   title: "Group hunting thresholds in a fictional harbour seal colony",
   summary:
     "Fictional scenario. Seals of an imagined colony drive herring together (Group) or hunt alone (Solo). Group hunting pays more, but only when the partner joins. The model claims, wrongly on purpose, that a colony starting with 70 % group hunters goes over to group hunting entirely; the threshold is 75 %.",
-  authors: [DEMO_AUTHOR, { name: "Bo Placeholder", affiliation: "Fjord Field Station (fictional)" }],
+  authors: [DEMO_AUTHOR, { name: "Jorunn Haldvik", affiliation: "Fjord Field Station (fictional)" }],
   manuscript: { title: "When does cooperative herding take hold?", year: 2025 },
   parameters: { herd: 4, solo: 3 },
   game: {
@@ -156,7 +163,16 @@ export const DEMO_MODELS: DemoModel[] = [
   },
 ];
 
-/** Deposits each demo model for the demo author unless a model of that title is already theirs. */
+/** The entry's authors as stored (absent fields as null), to compare with what is in the database. */
+function authorKey(authors: readonly { name: string; orcid?: string | null; affiliation?: string | null }[]): string {
+  return JSON.stringify(authors.map((a) => [a.name, a.orcid ?? null, a.affiliation ?? null]));
+}
+
+/**
+ * Deposits each demo model for the demo author unless a model of that title is already theirs.
+ * Titles never change, so an older database gets no duplicates: a changed spec becomes the next
+ * version, and an entry whose authors differ (older demo data) gets the current ones.
+ */
 export async function seedDemoModels(ctx: DemoContext): Promise<void> {
   const author = { id: ctx.accounts.author.id, role: "author" };
   for (const demo of DEMO_MODELS) {
@@ -165,6 +181,12 @@ export async function seedDemoModels(ctx: DemoContext): Promise<void> {
       .from(model)
       .where(and(eq(model.ownerId, author.id), eq(model.title, demo.entry.title)))
       .limit(1);
+    if (existing !== undefined) {
+      const view = await getModel(existing.id, author);
+      if (authorKey(view.authors) !== authorKey(demo.entry.authors ?? [])) {
+        await updateModel(existing.id, author, { ...demo.entry, venueId: view.venue?.id ?? null });
+      }
+    }
     const modelId =
       existing?.id ?? (await createModel(author, { ...demo.entry, venueId: demo.toVenue ? (ctx.venue?.id ?? null) : null })).id;
     // addVersion answers "identical" for a spec already deposited, so this is idempotent.

@@ -9,7 +9,7 @@ import { NotFound } from "@/lib/errors";
 import { listAudit } from "@/lib/audit";
 import { attachSupplement } from "@/lib/files";
 import { getJobStatus } from "@/lib/jobs";
-import { createModel, updateModel } from "@/lib/models";
+import { createModel, getModel, updateModel } from "@/lib/models";
 import { addVersion } from "@/lib/versions";
 import { startInlineWorker } from "@/lib/worker";
 import { makeUser, makeVenue, migrated } from "./deposit-support";
@@ -87,6 +87,43 @@ describe("demo models", () => {
     for (const m of models) {
       expect(await db.select().from(version).where(eq(version.modelId, m.id))).toHaveLength(1);
     }
+  });
+
+  it("brings an older demo database up to date without duplicating a model", async () => {
+    const author = await makeUser("Demo2");
+    const owner = { id: author.id, role: "author" };
+    const venueId = await makeVenue("demo-venue-earlier");
+    const ctx = {
+      accounts: {
+        author: { id: author.id, email: author.email, name: "Demo2" },
+        editor: { id: "", email: "", name: "" },
+        admin: { id: "", email: "", name: "" },
+      },
+      venue: { id: venueId, slug: "demo-venue-earlier", name: "demo-venue-earlier", description: "" },
+    };
+    // What an earlier seed left behind: the same title, another author list, a spec with plain numbers.
+    const oldAuthors = [{ name: "Earlier Demo Author", orcid: "0000-0002-1825-0097", affiliation: "Institute of Imaginary Meadows" }];
+    const { parameters: _dropped, ...withoutParameters } = ALPINE_BUMBLEBEES;
+    const oldSpec = { ...withoutParameters, authors: oldAuthors, game: { ...ALPINE_BUMBLEBEES.game, payoffs: [[1, 4], [3, 2]] } };
+    const old = await createModel(owner, { title: ALPINE_BUMBLEBEES.title, authors: oldAuthors, visibility: "public", venueId });
+    await addVersion(old.id, JSON.stringify(oldSpec, null, 2), owner);
+
+    await seedDemoModels(ctx);
+    const bees = await db.select().from(model).where(eq(model.title, ALPINE_BUMBLEBEES.title));
+    expect(bees.filter((m) => m.ownerId === author.id).map((m) => m.id)).toEqual([old.id]);
+    const view = await getModel(old.id, owner);
+    expect(view.venue?.id).toBe(venueId);
+    expect(view.authors).toEqual(ALPINE_BUMBLEBEES.authors.map((a) => ({ name: a.name, orcid: null, affiliation: a.affiliation })));
+    // The old spec stays as v1; the current one, with its parameters, is v2.
+    expect(view.versions.map((v) => v.number)).toEqual([2, 1]);
+    const rows = await db.select().from(version).where(eq(version.modelId, old.id)).orderBy(version.number);
+    expect(rows.map((v) => (JSON.parse(v.specText) as { parameters?: unknown }).parameters ?? null)).toEqual([null, ALPINE_BUMBLEBEES.parameters]);
+
+    // Once up to date, a further seed changes nothing: no version, no entry update.
+    const audit = (await listAudit({ modelId: old.id, limit: 100 })).length;
+    await seedDemoModels(ctx);
+    expect((await getModel(old.id, owner)).versions).toHaveLength(2);
+    expect(await listAudit({ modelId: old.id, limit: 100 })).toHaveLength(audit);
   });
 });
 
