@@ -20,7 +20,7 @@ afterAll(async () => {
 });
 
 const PASSWORD = "tidal-flat-notebook-7";
-const EXAMPLE_PATH = path.resolve("schemas/examples/meadow-foragers.json");
+const EXAMPLE_PATH = path.resolve("schemas/examples/fog-dune-beetles.json");
 const exampleText = readFileSync(EXAMPLE_PATH, "utf8");
 const work = mkdtempSync(path.join(os.tmpdir(), "restpoint-deposit-e2e-"));
 /** The first journey's private model, which the second author must not find. */
@@ -84,7 +84,7 @@ function stillNoReload(page: Page): Promise<boolean> {
 
 describe("an author depositing a model", () => {
   it("uploads the example spec, watches it verify, reads the report, corrects it, and gets mail for each", async () => {
-    const title = "Meadow foragers, deposited in the browser";
+    const title = "Mist beetles, deposited in the browser";
     const { page, email } = await newAuthor("Wren Deposit");
 
     // The model entry: a wrong ORCID check character is caught before anything is sent.
@@ -95,13 +95,14 @@ describe("an author depositing a model", () => {
     await page.getByLabel("Title", { exact: true }).fill(title);
     await page.locator("#author-0-name").fill("Wren Deposit");
     await page.locator("#author-0-orcid").fill("0000-0002-1825-0098");
-    await page.getByLabel("DOI").fill("10.5555/meadow.2026");
+    await page.getByLabel("DOI").fill("10.5555/dunes.2026");
     await page.getByLabel("Year").fill("2026");
     await page.getByRole("button", { name: "Create the model entry" }).click();
     await expect(page.locator("#author-0-orcid-error").textContent()).resolves.toBe(
       "Not a valid ORCID iD (0000-0000-0000-000X with a correct check character).",
     );
     await screenshot(page, "deposit-new-model-orcid-error");
+    // ORCID's own documented sample iD: a well-formed iD with a correct check character.
     await page.locator("#author-0-orcid").fill("0000-0002-1825-0097");
     await page.getByRole("button", { name: "Create the model entry" }).click();
     await page.waitForURL(/\/workspace\/models\/rp-[a-z0-9]+\?created=1$/);
@@ -119,7 +120,7 @@ describe("an author depositing a model", () => {
     });
     await markNoReload(page);
     await chooseFile(page, "spec-upload", EXAMPLE_PATH);
-    await page.getByTestId("spec-upload-result").getByText("was made from meadow-foragers.json").waitFor();
+    await page.getByTestId("spec-upload-result").getByText("was made from fog-dune-beetles.json").waitFor();
     const v1State = page.getByTestId("version-1-state");
     await v1State.locator("[data-verdict]").waitFor({ timeout: 60_000 });
     await expect(v1State.locator("[data-verdict]").getAttribute("data-verdict")).resolves.toBe("confirmed");
@@ -144,11 +145,11 @@ describe("an author depositing a model", () => {
     await page.getByTestId("spec-upload-result").getByText("is identical to v1").waitFor();
 
     // A broken spec: every problem at once, with JSON pointer and line; nothing stored.
-    const broken = exampleText.replace('"count": 5', '"count": "five"');
+    const broken = exampleText.replace('"count": 7', '"count": "seven"');
     await chooseFile(page, "spec-upload", writeSpec("broken.json", broken));
     const errors = page.getByTestId("spec-errors");
     await errors.waitFor();
-    const brokenLine = broken.split("\n").findIndex((l) => l.includes('"count": "five"')) + 1;
+    const brokenLine = broken.split("\n").findIndex((l) => l.includes('"count": "seven"')) + 1;
     await expect(errors.textContent()).resolves.toContain("/claims/5/count");
     await expect(errors.textContent()).resolves.toContain(`line ${brokenLine}`);
     await expect(page.getByTestId("spec-upload-result").textContent()).resolves.toContain("broken.json was not stored");
@@ -162,7 +163,7 @@ describe("an author depositing a model", () => {
     await report.waitFor();
     await expect(page.getByTestId("verdict-banner").getAttribute("data-verdict")).resolves.toBe("confirmed");
     await expect(page.getByTestId("claims-table").locator("tbody tr").count()).resolves.toBe(10);
-    await expect(page.getByTestId("rest-points-table").locator("tbody tr").count()).resolves.toBe(5);
+    await expect(page.getByTestId("rest-points-table").locator("tbody tr").count()).resolves.toBe(7);
     expect(await page.locator("section[aria-labelledby=report-experiments] svg").count()).toBeGreaterThanOrEqual(4);
     await screenshot(page, "deposit-report-v1-light");
     await page.emulateMedia({ colorScheme: "dark" });
@@ -173,7 +174,7 @@ describe("an author depositing a model", () => {
     await expect(page.getByTestId(`supplement-upload-v1-limits`).textContent()).resolves.toBe(
       "Supplementary files: CSV, PDF, ZIP or plain text, up to 50 MB each.",
     );
-    await dropFile(page, "supplement-upload-v1", "field-counts.csv", "patch,holders\n1,4\n2,6\n", "text/csv");
+    await dropFile(page, "supplement-upload-v1", "field-counts.csv", "site,beetles\n1,4\n2,6\n", "text/csv");
     await page.getByTestId("file-list").getByText("field-counts.csv").waitFor();
     await chooseFile(page, "supplement-upload-v1", writeSpec("paper.pdf", "this is not a PDF"));
     await page
@@ -187,10 +188,10 @@ describe("an author depositing a model", () => {
     await page.waitForURL(`**/workspace/models/${slug}`);
     const corrected = JSON.parse(exampleText) as { summary: string; claims: { id: string; note?: string }[] };
     corrected.summary = `${corrected.summary} Corrected: the fixation claim's note now says what was measured.`;
-    for (const c of corrected.claims) if (c.id === "holder-fixation") c.note = "Measured in the field season of the fictional meadow.";
+    for (const c of corrected.claims) if (c.id === "trough-fixation") c.note = "Measured in the dew season of the fictional dune.";
     await markNoReload(page);
-    await dropFile(page, "spec-upload", "meadow-v2.json", JSON.stringify(corrected, null, 2), "application/json");
-    await page.getByTestId("spec-upload-result").getByText("v2 was made from meadow-v2.json").waitFor();
+    await dropFile(page, "spec-upload", "dunes-v2.json", JSON.stringify(corrected, null, 2), "application/json");
+    await page.getByTestId("spec-upload-result").getByText("v2 was made from dunes-v2.json").waitFor();
     // Straight to v2's page: while the job runs it shows the job's state, then the report, with no reload.
     await page.getByRole("link", { name: "v2", exact: true }).click();
     await page.waitForURL(`**/workspace/models/${slug}/v/2`);
@@ -249,7 +250,7 @@ describe("a script with an API token", () => {
     const created = await fetch(`${baseUrl}/api/v1/models`, {
       method: "POST",
       headers: { ...auth, "content-type": "application/json" },
-      body: JSON.stringify({ title: "Meadow foragers, from a script" }),
+      body: JSON.stringify({ title: "Mist beetles, from a script" }),
     });
     expect(created.status).toBe(201);
     const { model } = (await created.json()) as { model: { slug: string } };
@@ -301,7 +302,7 @@ describe("an upload that never reaches the server", () => {
     await page.getByRole("button", { name: "Create the model entry" }).click();
     await page.waitForURL(/\/workspace\/models\/rp-[a-z0-9]+\?created=1$/);
     await page.route("**/api/v1/models/*/versions", (route) => route.abort("connectionreset"));
-    await dropFile(page, "spec-upload", "meadow.json", exampleText, "application/json");
+    await dropFile(page, "spec-upload", "dunes.json", exampleText, "application/json");
     await page
       .getByTestId("spec-upload-result")
       .getByText("The upload did not reach the server. Check the connection and try again.")

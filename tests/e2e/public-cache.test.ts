@@ -6,7 +6,7 @@ import { readFileSync } from "node:fs";
 import { beforeAll, describe, expect, it } from "vitest";
 import { app, sessionCookie } from "./support/harness";
 
-const spec = readFileSync("schemas/examples/meadow-foragers.json", "utf8").replace("Territory holding", "Cache-check holding");
+const spec = readFileSync("schemas/examples/fog-dune-beetles.json", "utf8").replace("Fog basking", "Cache-check basking");
 let cookie = "";
 let slug = "";
 
@@ -36,7 +36,7 @@ beforeAll(async () => {
     method: "POST",
     asOwner: true,
     headers: { "content-type": "application/json" },
-    body: JSON.stringify({ title: "Cache check foragers", visibility: "public" }),
+    body: JSON.stringify({ title: "Cache check beetles", visibility: "public" }),
   });
   expect(created.status).toBe(201);
   slug = ((await created.json()) as { model: { slug: string } }).model.slug;

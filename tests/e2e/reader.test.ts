@@ -9,31 +9,32 @@ import type { Page } from "playwright-core";
 import { app, openBrowser, screenshot, type OpenBrowser } from "./support/harness";
 
 let b: OpenBrowser;
-let meadow = "";
+let dunes = "";
 let market = "";
 let hidden = "";
 
 // The running app's own worker re-runs what is deposited here, as it would for an author.
 const APP_WORKER = { worker: "app" } as const;
-const meadowSpec = readFileSync("schemas/examples/meadow-foragers.json", "utf8");
+const duneSpec = readFileSync("schemas/examples/fog-dune-beetles.json", "utf8");
 const marketSpec = readFileSync("tests/integration/readers-market.json", "utf8");
 
 beforeAll(async () => {
   // Seed the running app's database through the deposit functions (the seed module reads the environment on import).
   process.env.DATABASE_URL = `file:${app().databaseFile}`;
   const { depositPublicModel } = await import("../integration/readers-seed");
-  meadow = (
-    await depositPublicModel([meadowSpec], {
-      title: "Meadow foragers: patch defence",
-      summary: "Three tactics over nectar patches; a fictional bumble forager.",
-      authors: [{ name: "Ada Example", orcid: "0000-0002-1825-0097" }, { name: "Reef & Kelp Lab" }],
-      doi: "10.5555/meadow.2026_7",
+  dunes = (
+    await depositPublicModel([duneSpec], {
+      title: "Mist beetles: where to stand in the fog",
+      summary: "Three dew-collecting sites on a fictional coastal dune.",
+      // The ORCID iD is ORCID's own documented sample iD (valid check character), not a real author's.
+      authors: [{ name: "Ilse Vandermeer", orcid: "0000-0002-1825-0097" }, { name: "Reef & Kelp Lab" }],
+      doi: "10.5555/dunes.2026_7",
     }, APP_WORKER)
   ).slug;
   market = (await depositPublicModel([marketSpec], { title: "Harbour inspections", authors: [{ name: "Ola Nordmann" }] }, APP_WORKER)).slug;
   // Private, and with the same strategy names: it must never show up.
   hidden = (
-    await depositPublicModel([meadowSpec.replace("Territory holding", "Secret territory holding")], { title: "Secret meadow draft", visibility: "private" }, APP_WORKER)
+    await depositPublicModel([duneSpec.replace("Fog basking", "Secret fog basking")], { title: "Secret dune draft", visibility: "private" }, APP_WORKER)
   ).slug;
   b = await openBrowser();
 }, 300_000);
@@ -51,32 +52,34 @@ describe("a reader without an account", () => {
   it("finds a model by a strategy name, re-runs it with a new parameter and downloads its data", async () => {
     const page = await b.page();
     await page.goto("/models");
-    await page.getByLabel("Search models").fill("Sneaker");
+    await page.getByLabel("Search models").fill("Trough");
     await page.getByRole("button", { name: "Search" }).click();
-    await page.waitForURL((u) => u.searchParams.get("q") === "Sneaker");
+    await page.waitForURL((u) => u.searchParams.get("q") === "Trough");
     const results = page.getByTestId("registry-results").locator("li");
     await expect.poll(() => results.count()).toBe(1);
     expect(await page.getByTestId("registry-count").innerText()).toBe("1 model; showing 1–1.");
-    expect(await page.content()).not.toContain("Secret meadow draft");
+    expect(await page.content()).not.toContain("Secret dune draft");
 
-    await results.first().getByRole("link", { name: "Meadow foragers: patch defence" }).click();
-    await page.waitForURL(`**/models/${meadow}`);
-    await expect.poll(() => page.getByRole("heading", { level: 1 }).innerText()).toContain("Territory holding among meadow foragers");
+    await results.first().getByRole("link", { name: "Mist beetles: where to stand in the fog" }).click();
+    await page.waitForURL(`**/models/${dunes}`);
+    await expect.poll(() => page.getByRole("heading", { level: 1 }).innerText()).toContain("Fog basking on an imagined coastal dune");
     await page.getByTestId("registered-figures").waitFor();
     const registered = await seriesPoints(page, "[data-testid=report-view]");
     expect(registered.length).toBeGreaterThan(100);
 
-    // Raise the cost of a fight: the mixed rest point moves from Holder share V/C = 2/3 to 2/8 (Maynard Smith 1982, from memory).
-    await page.getByTestId("param-C").fill("8");
+    // A richer Crest (w from 3 to 4) draws beetles up. Solved by hand, every site paying the same
+    // inside the simplex: Crest 4 - 4x1 - 2x3 = Lee 2 - 4x2 = Trough 3 - 4x3 with x1 + x2 + x3 = 1
+    // gives x3 = x2 + 1/4, x1 = (1 + 2x3)/4, so x3 = 0.4, x2 = 0.15, x1 = 0.45 (was 1/4, 1/4, 1/2).
+    await page.getByTestId("param-w").fill("4");
     await page.getByRole("button", { name: "Re-run with these values" }).click();
     const own = page.getByTestId("own-results");
     await own.waitFor({ timeout: 30_000 });
     expect(await own.innerText()).toContain("These are not the registered results of this version");
-    expect(await page.getByTestId("own-changes").innerText()).toBe("Your values: C = 8 (registered: 3).");
+    expect(await page.getByTestId("own-changes").innerText()).toBe("Your values: w = 4 (registered: 3).");
     const mine = await seriesPoints(page, "[data-testid=own-results]");
     expect(mine.length).toBeGreaterThan(100);
     expect(mine).not.toBe(registered);
-    expect(await own.getByRole("table").last().innerText()).toContain("(0.25, 0.75, 0)");
+    expect(await own.getByRole("table").last().innerText()).toContain("(0.45, 0.15, 0.4)");
     // The registered figures are still there, unchanged.
     expect(await seriesPoints(page, "[data-testid=report-view]")).toBe(registered);
     await screenshot(page, "reader-model-own-values");
@@ -84,27 +87,27 @@ describe("a reader without an account", () => {
     // A value the rules refuse is caught in the browser, next to its field.
     await page.locator("#try-0-0-0").fill("0.5");
     await page.getByRole("button", { name: "Re-run with these values" }).click();
-    await expect.poll(() => page.getByTestId("try-values").innerText()).toContain("they sum to 1.45");
+    await expect.poll(() => page.getByTestId("try-values").innerText()).toContain("they sum to 1.4.");
     // The keyboard lands on the first share of the group that needs attention.
     await expect.poll(() => page.evaluate(() => document.activeElement?.id)).toBe("try-0-0-0");
     await page.getByRole("button", { name: "Scale these shares to sum to 1" }).click();
-    expect(await page.locator("#try-0-0-0").inputValue()).toBe("0.344827586207");
+    expect(await page.locator("#try-0-0-0").inputValue()).toBe("0.357142857143");
 
     // CSV of the server's own run.
-    const [csvDownload] = await Promise.all([page.waitForEvent("download"), page.getByTestId("csv-holders-rare").click()]);
-    expect(csvDownload.suggestedFilename()).toBe(`${meadow}-v1-holders-rare.csv`);
+    const [csvDownload] = await Promise.all([page.waitForEvent("download"), page.getByTestId("csv-lee-crowded").click()]);
+    expect(csvDownload.suggestedFilename()).toBe(`${dunes}-v1-lee-crowded.csv`);
     const csv = readFileSync((await csvDownload.path()) ?? "", "utf8").split("\r\n");
-    expect(csv[0]).toBe("time,Holder,Sharer,Sneaker");
-    expect(csv[1]).toBe("0,0.05,0.9,0.05");
+    expect(csv[0]).toBe("time,Crest,Lee,Trough");
+    expect(csv[1]).toBe("0,0.1,0.8,0.1");
     expect(csv).toHaveLength(203);
 
     // BibTeX with the spec's hash.
-    const report = (await (await fetch(`${app().baseUrl}/models/${meadow}/v/1/report.json`)).json()) as { specSha256: string };
+    const report = (await (await fetch(`${app().baseUrl}/models/${dunes}/v/1/report.json`)).json()) as { specSha256: string };
     const [bibDownload] = await Promise.all([page.waitForEvent("download"), page.getByTestId("bibtex-link").click()]);
-    expect(bibDownload.suggestedFilename()).toBe(`${meadow}-v1.bib`);
+    expect(bibDownload.suggestedFilename()).toBe(`${dunes}-v1.bib`);
     const bib = readFileSync((await bibDownload.path()) ?? "", "utf8");
-    expect(bib.startsWith(`@misc{restpoint-${meadow}-v1,`)).toBe(true);
-    expect(bib).toContain("author = {Ada Example and Reef \\& Kelp Lab}");
+    expect(bib.startsWith(`@misc{restpoint-${dunes}-v1,`)).toBe(true);
+    expect(bib).toContain("author = {Ilse Vandermeer and Reef \\& Kelp Lab}");
     expect(bib).toContain(`specification SHA-256 ${report.specSha256}`);
   });
 
@@ -143,12 +146,12 @@ describe("a reader without an account", () => {
 
   it("sees the page metadata and the sitemap", async () => {
     const page = await b.page();
-    await page.goto(`/models/${meadow}`);
-    expect(await page.title()).toBe("Territory holding among meadow foragers: a three-tactic contest over nectar patches · Restpoint");
-    expect(await page.locator('meta[property="og:title"]').getAttribute("content")).toContain("Territory holding");
-    expect(await page.locator('meta[name="description"]').getAttribute("content")).toContain("Version 1 by Ada Example, Reef & Kelp Lab");
+    await page.goto(`/models/${dunes}`);
+    expect(await page.title()).toBe("Fog basking on an imagined coastal dune: where mist beetles stand at dawn · Restpoint");
+    expect(await page.locator('meta[property="og:title"]').getAttribute("content")).toContain("Fog basking");
+    expect(await page.locator('meta[name="description"]').getAttribute("content")).toContain("Version 1 by Ilse Vandermeer, Reef & Kelp Lab");
     const sitemap = await (await fetch(`${app().baseUrl}/sitemap.xml`)).text();
-    expect(sitemap).toContain(`/models/${meadow}</loc>`);
+    expect(sitemap).toContain(`/models/${dunes}</loc>`);
     expect(sitemap).not.toContain(hidden);
   });
 });
@@ -165,7 +168,7 @@ describe("screenshots of the public pages", () => {
         await page.goto("/models?q=a");
         await screenshot(page, `reader-registry-${label}-${scheme}`);
         for (const [name, slug] of [
-          ["model", meadow],
+          ["model", dunes],
           ["market", market],
         ] as const) {
           await page.goto(`/models/${slug}`);
