@@ -423,34 +423,49 @@ export function validateSpec(input: unknown): SpecError[] {
   if (!validateSchema(input)) {
     const raw = validateSchema.errors ?? [];
     const schemaErrors = prune(raw).map((e) => describe(e, input));
-    // Semantic checks on the parts that passed, so every problem is reported in one round.
+    // Semantic checks on the parts that passed, so every problem is reported in one round,
+    // listed in the order of the file.
     // Only an object can hold parts; a value with nothing clean gets the schema errors alone.
     const failedAt = raw.map((e) => e.instancePath);
     const clean = (pointer: string): boolean => !failedAt.some((p) => p === pointer || p.startsWith(`${pointer}/`));
     const partial = input !== null && typeof input === "object" && !Array.isArray(input) ? semanticErrors(input as ModelSpec, clean) : [];
-    return byPointer(dedupe([...schemaErrors, ...partial]));
+    return byPointer(input, dedupe([...schemaErrors, ...partial]));
   }
   return dedupe(semanticErrors(input as unknown as ModelSpec));
 }
 
-/** Compares two JSON pointers token by token, array indices as numbers (so /claims/2 before /claims/10). */
-export function comparePointers(a: string, b: string): number {
-  const ta = a === "" ? [] : a.split("/").slice(1);
-  const tb = b === "" ? [] : b.split("/").slice(1);
+/**
+ * Compares two JSON pointers in document order: token by token, array entries by index and
+ * object members in the order they appear in `root` (the order of the uploaded text, so the
+ * list reads top to bottom like the file). A member `root` does not have (a missing required
+ * field) comes after those it has, then by name.
+ */
+export function comparePointers(root: unknown, a: string, b: string): number {
+  const ta = a === "" ? [] : a.split("/").slice(1).map(unescapeToken);
+  const tb = b === "" ? [] : b.split("/").slice(1).map(unescapeToken);
+  let here: unknown = root;
   for (let i = 0; i < Math.min(ta.length, tb.length); i++) {
     const x = ta[i] ?? "";
     const y = tb[i] ?? "";
-    if (x === y) continue;
-    const nx = /^\d+$/.test(x);
-    const ny = /^\d+$/.test(y);
-    if (nx && ny) return Number(x) - Number(y);
-    return x < y ? -1 : 1;
+    if (x !== y) {
+      if (/^\d+$/.test(x) && /^\d+$/.test(y)) return Number(x) - Number(y);
+      const keys = here !== null && typeof here === "object" && !Array.isArray(here) ? Object.keys(here) : [];
+      const ix = keys.indexOf(x);
+      const iy = keys.indexOf(y);
+      if (ix >= 0 && iy >= 0) return ix - iy;
+      if (ix >= 0 || iy >= 0) return ix >= 0 ? -1 : 1;
+      return x < y ? -1 : 1;
+    }
+    here = here !== null && typeof here === "object" ? (here as Record<string, unknown>)[x] : undefined;
   }
   return ta.length - tb.length;
 }
 
-/** Errors in document order of their pointers; errors at one pointer keep their order (stable sort). */
-function byPointer(errors: SpecError[]): SpecError[] {
-  return [...errors].sort((a, b) => comparePointers(a.path, b.path));
+function unescapeToken(t: string): string {
+  return t.replace(/~1/g, "/").replace(/~0/g, "~");
 }
 
+/** Errors in document order of their pointers; errors at one pointer keep their order (stable sort). */
+function byPointer(root: unknown, errors: SpecError[]): SpecError[] {
+  return [...errors].sort((a, b) => comparePointers(root, a.path, b.path));
+}

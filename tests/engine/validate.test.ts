@@ -225,7 +225,7 @@ describe("validateSpec: a spec that fails the schema still gets the safe semanti
     };
   }
 
-  it("lists the schema error and a state summing to 1.2 in one round, ordered by pointer", () => {
+  it("lists the schema error and a state summing to 1.2 in one round, in the order of the file", () => {
     const spec = edit(pasture(), (s) => {
       (s.claims as Json[])[1] = { ...((s.claims as Json[])[1] as Json), colour: "green" };
     });
@@ -244,7 +244,8 @@ describe("validateSpec: a spec that fails the schema still gets the safe semanti
       s.title = 7;
     });
     const paths = validateSpec(spec).map((e) => e.path);
-    expect(paths).toEqual(["/claims/0/state/0", "/claims/0/state/1", "/experiments/0/initial", "/title"]);
+    // In the order of the file: title, then experiments, then claims.
+    expect(paths).toEqual(["/title", "/experiments/0/initial", "/claims/0/state/0", "/claims/0/state/1"]);
     expect(validateSpec(spec).find((e) => e.path === "/experiments/0/initial")?.message).toBe(
       "The shares of the state must sum to 1 (within 1e-9); they sum to 1.1.",
     );
@@ -257,8 +258,9 @@ describe("validateSpec: a spec that fails the schema still gets the safe semanti
       s.authors = [{ name: "R. Moorland", orcid: "0000-0002-1825-0098" }];
     });
     const errors = validateSpec(spec);
-    expect(errors.map((e) => e.path)).toEqual(["/authors/0/orcid", "/claims/1/id", "/game/strategies"]);
-    expect(errors[0]?.message).toBe("The ORCID iD 0000-0002-1825-0098 has a wrong check digit (ISO 7064 MOD 11-2); it is probably mistyped.");
+    // "authors" was added last, so it comes last.
+    expect(errors.map((e) => e.path)).toEqual(["/game/strategies", "/claims/1/id", "/authors/0/orcid"]);
+    expect(errors[2]?.message).toBe("The ORCID iD 0000-0002-1825-0098 has a wrong check digit (ISO 7064 MOD 11-2); it is probably mistyped.");
     expect(errors[1]?.message).toBe('The claim id "split" is used twice; ids must be unique.');
   });
 
@@ -267,7 +269,7 @@ describe("validateSpec: a spec that fails the schema still gets the safe semanti
       (s.experiments as Json[])[0] = { id: "spring", initial: [0.3, 0.7], duration: -1 };
     });
     const errors = validateSpec(spec);
-    expect(errors.map((e) => e.path)).toEqual(["/claims/0/state", "/experiments/0/duration"]);
+    expect(errors.map((e) => e.path)).toEqual(["/experiments/0/duration", "/claims/0/state"]);
   });
 
   it("reports a missing game once, without checking states against it", () => {
