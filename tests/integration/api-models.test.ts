@@ -1,4 +1,7 @@
 import "./deposit-env";
+import { createHash } from "node:crypto";
+import { readFileSync } from "node:fs";
+import path from "node:path";
 import { beforeAll, describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
 import { accountWithToken, ctx, jsonRequest, request, sessionCookie, type TestAccount } from "./api-support";
@@ -162,10 +165,19 @@ describe("GET /schemas/model-spec.v1.json", () => {
     expect(res.status).toBe(200);
     expect(res.headers.get("content-type")).toBe("application/schema+json; charset=utf-8");
     expect(res.headers.get("cache-control")).toBe("public, max-age=86400, stale-while-revalidate=604800");
-    const schema = (await res.json()) as { $schema: string; title: string };
+    const text = await res.text();
+    const schema = JSON.parse(text) as { $schema: string; $id: string; title: string };
     expect(schema.$schema).toBe("https://json-schema.org/draft/2020-12/schema");
+    // Served under this deployment's own public address, not the file's neutral URN.
+    const { env } = await import("@/lib/env");
+    expect(schema.$id).toBe(`${env.authUrl.replace(/\/$/, "")}/schemas/model-spec.v1.json`);
+    const file = JSON.parse(readFileSync(path.resolve("schemas/model-spec.v1.schema.json"), "utf8")) as { $id: string };
+    expect(file.$id).toBe("urn:restpoint:schema:model-spec:v1");
+    expect({ ...schema, $id: file.$id }).toEqual(file);
     const etag = res.headers.get("etag");
     expect(etag).toMatch(/^"[0-9a-f]{32}"$/);
+    // The ETag is the hash of the bytes sent.
+    expect(etag).toBe(`"${createHash("sha256").update(text).digest("hex").slice(0, 32)}"`);
     const again = GET(request("GET", "/schemas/model-spec.v1.json", {}, { headers: { "if-none-match": etag ?? "" } }));
     expect(again.status).toBe(304);
     expect(await again.text()).toBe("");

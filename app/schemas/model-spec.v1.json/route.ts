@@ -1,11 +1,23 @@
 /**
  * The model specification's JSON Schema at a stable address, for editors' and CI tools'
  * validation. The body is fixed per deployment, so clients may cache it and revalidate by ETag.
+ *
+ * The file in schemas/ names itself with a URN (it is the same schema wherever it is served);
+ * here `$id` becomes the address it is served from, this deployment's public origin, so a
+ * validator that follows `$id` comes back to this route. The ETag is taken over those bytes.
  */
 import { createHash } from "node:crypto";
+import { env } from "@/lib/env";
 import schema from "@/schemas/model-spec.v1.schema.json";
 
-const body = JSON.stringify(schema, null, 2);
+const SCHEMA_PATH = "/schemas/model-spec.v1.json";
+
+/** The schema as served by a deployment whose public origin is `origin`. */
+function servedSchema(origin: string): Record<string, unknown> {
+  return { ...schema, $id: new URL(SCHEMA_PATH, origin).toString() };
+}
+
+const body = JSON.stringify(servedSchema(env.authUrl), null, 2);
 const etag = `"${createHash("sha256").update(body).digest("hex").slice(0, 32)}"`;
 
 const headers = {
