@@ -26,8 +26,7 @@ export function ClaimsTable({ claims, specClaims, caption = "Claims" }: ClaimsTa
             <th scope="col" className="py-2 pr-4 font-semibold">Claim</th>
             <th scope="col" className="py-2 pr-4 font-semibold">Status</th>
             <th scope="col" className="py-2 pr-4 font-semibold">Deviation</th>
-            <th scope="col" className="py-2 pr-4 font-semibold">What the engine found</th>
-            <th scope="col" className="py-2 font-semibold">Kind</th>
+            <th scope="col" className="py-2 font-semibold">What the engine found</th>
           </tr>
         </thead>
         <tbody className={STACK_BODY}>
@@ -36,8 +35,10 @@ export function ClaimsTable({ claims, specClaims, caption = "Claims" }: ClaimsTa
             return (
               <tr key={c.id} id={`claim-${c.id}`} data-status={c.status} className={STACK_ROW}>
                 {/* On a phone the card opens with the status, then says which claim it is. */}
-                <th scope="row" className={`min-w-[9rem] py-2 pr-4 font-mono text-xs font-normal break-words max-sm:order-2 max-sm:min-w-0 ${STACK_CELL}`} data-label="Claim">
-                  {c.id}
+                {/* The kind goes under the id rather than in a column of its own, leaving the sentence its width. */}
+                <th scope="row" className={`min-w-[9rem] py-2 pr-4 font-normal max-sm:order-2 max-sm:min-w-0 ${STACK_CELL}`} data-label="Claim">
+                  <span className="font-mono text-xs break-words">{c.id}</span>
+                  <span className="block text-xs text-ink-soft max-sm:ml-2 max-sm:inline">{claimKindLabel(c.kind)}</span>
                 </th>
                 <td className={`py-2 pr-4 whitespace-nowrap max-sm:order-1 ${STACK_CELL}`} data-label="Status">
                   <StatusMark outcome={c.status} />
@@ -55,16 +56,13 @@ export function ClaimsTable({ claims, specClaims, caption = "Claims" }: ClaimsTa
                   )}
                 </td>
                 {/* A reading width for the sentence, so it is never squeezed into a tall column. */}
-                <td className={`min-w-[18rem] py-2 pr-4 max-sm:order-4 max-sm:min-w-0 max-sm:before:hidden ${STACK_CELL}`} data-label="What the engine found">
+                <td className={`min-w-[18rem] py-2 max-sm:order-4 max-sm:min-w-0 max-sm:before:hidden ${STACK_CELL}`} data-label="What the engine found">
                   <span>{c.message}</span>
                   {note !== undefined && note !== "" && (
                     <span className="mt-1 block text-xs text-ink-faint italic">
                       Author&rsquo;s note: {note}
                     </span>
                   )}
-                </td>
-                <td className={`py-2 whitespace-nowrap max-sm:order-5 max-sm:text-xs max-sm:text-ink-soft ${STACK_CELL}`} data-label="Kind">
-                  {claimKindLabel(c.kind)}
                 </td>
               </tr>
             );

@@ -1,6 +1,6 @@
 /** Every isolated rest point the engine found, with its support, linear stability and equilibrium tests. */
 import type { GameSpec, RestPointReport } from "@/lib/engine/types";
-import { ScrollRegion, STACK_BODY, STACK_CELL, STACK_HEAD, STACK_ROW, STACK_TABLE } from "./stacked-table";
+import { ScrollRegion, STACK_BODY, STACK_CELL, STACK_HEAD, STACK_ROW_PAIRS, STACK_TABLE } from "./stacked-table";
 import { formatEigenvalues, formatNumber, isBimatrixState, STABILITY_LABELS, stateLabels } from "./format";
 
 export interface RestPointsTableProps {
@@ -83,57 +83,61 @@ export function RestPointsTable({ restPoints, game }: RestPointsTableProps) {
         ? game.populations.map((p) => `${p.name}: ${p.strategies.join(", ")}`).join("; ")
         : undefined;
   return (
-    <ScrollRegion label="Rest points">
-      <table className={STACK_TABLE} data-testid="rest-points-table">
-        <caption className="sr-only">Rest points of the replicator dynamics</caption>
-        <thead className={STACK_HEAD}>
-          <tr className="border-b border-line-strong text-xs uppercase tracking-wide text-ink-faint">
-            <th scope="col" className="py-2 pr-4 font-semibold">
-              State
-              {order !== undefined && (
-                <span className="block font-normal normal-case tracking-normal">({order})</span>
-              )}
-            </th>
-            <th scope="col" className="py-2 pr-4 font-semibold">Support</th>
-            <th scope="col" className="py-2 pr-4 font-semibold">Stability</th>
-            <th scope="col" className="py-2 pr-4 font-semibold">Eigenvalues</th>
-            <th scope="col" className="py-2 pr-4 font-semibold">Nash</th>
-            <th scope="col" className="py-2 font-semibold">ESS</th>
-          </tr>
-        </thead>
-        <tbody className={STACK_BODY}>
-          {restPoints.map((rp, i) => (
-            <tr key={i} className={STACK_ROW}>
-              <td className={`py-2 pr-4 ${STACK_CELL}`} data-label={order === undefined ? "State" : `State (${order})`}>
-                <StateCell state={rp.state} game={game} />
-              </td>
-              <td className={`py-2 pr-4 ${STACK_CELL}`} data-label="Support">
-                {rp.support.join(", ")}
-              </td>
-              <td className={`py-2 pr-4 ${STACK_CELL}`} data-label="Stability">
-                <StabilityWord stability={rp.stability} />
-              </td>
-              <td className={`py-2 pr-4 font-mono text-xs tabular-nums ${STACK_CELL}`} data-label="Eigenvalues">
-                {rp.eigenvalues.length === 0 ? (
-                  <span className="text-ink-faint">—</span>
-                ) : (
-                  formatEigenvalues(rp.eigenvalues).map((e, j) => (
-                    <span key={j} className="block whitespace-nowrap max-sm:ml-0 max-sm:inline max-sm:after:content-['_·_'] max-sm:last:after:content-none">
-                      {e}
-                    </span>
-                  ))
+    <>
+      {/* The header row, which names the order of the shares, is hidden on a phone: say it once here. */}
+      {order !== undefined && <p className="mb-1 text-xs text-ink-faint sm:hidden">States list the shares of {order}.</p>}
+      <ScrollRegion label="Rest points">
+        <table className={STACK_TABLE} data-testid="rest-points-table">
+          <caption className="sr-only">Rest points of the replicator dynamics</caption>
+          <thead className={STACK_HEAD}>
+            <tr className="border-b border-line-strong text-xs uppercase tracking-wide text-ink-faint">
+              <th scope="col" className="py-2 pr-4 font-semibold">
+                State
+                {order !== undefined && (
+                  <span className="block font-normal normal-case tracking-normal">({order})</span>
                 )}
-              </td>
-              <td className={`py-2 pr-4 ${STACK_CELL}`} data-label="Nash">
-                <YesNo value={rp.nash} />
-              </td>
-              <td className={`py-2 ${STACK_CELL}`} data-label="ESS">
-                <YesNo value={rp.ess} />
-              </td>
+              </th>
+              <th scope="col" className="py-2 pr-4 font-semibold">Support</th>
+              <th scope="col" className="py-2 pr-4 font-semibold">Stability</th>
+              <th scope="col" className="py-2 pr-4 font-semibold">Eigenvalues</th>
+              <th scope="col" className="py-2 pr-4 font-semibold">Nash</th>
+              <th scope="col" className="py-2 font-semibold">ESS</th>
             </tr>
-          ))}
-        </tbody>
-      </table>
-    </ScrollRegion>
+          </thead>
+          <tbody className={STACK_BODY}>
+            {restPoints.map((rp, i) => (
+              <tr key={i} className={STACK_ROW_PAIRS}>
+                <td className={`py-2 pr-4 max-sm:col-span-2 ${STACK_CELL}`} data-label="State">
+                  <StateCell state={rp.state} game={game} />
+                </td>
+                <td className={`py-2 pr-4 max-sm:col-span-2 ${STACK_CELL}`} data-label="Support">
+                  {rp.support.join(", ")}
+                </td>
+                <td className={`py-2 pr-4 ${STACK_CELL}`} data-label="Stability">
+                  <StabilityWord stability={rp.stability} />
+                </td>
+                <td className={`py-2 pr-4 font-mono text-xs tabular-nums ${STACK_CELL}`} data-label="Eigenvalues">
+                  {rp.eigenvalues.length === 0 ? (
+                    <span className="text-ink-faint">—</span>
+                  ) : (
+                    formatEigenvalues(rp.eigenvalues).map((e, j) => (
+                      <span key={j} className="block whitespace-nowrap max-sm:ml-0 max-sm:inline max-sm:after:content-['_·_'] max-sm:last:after:content-none">
+                        {e}
+                      </span>
+                    ))
+                  )}
+                </td>
+                <td className={`py-2 pr-4 ${STACK_CELL}`} data-label="Nash">
+                  <YesNo value={rp.nash} />
+                </td>
+                <td className={`py-2 ${STACK_CELL}`} data-label="ESS">
+                  <YesNo value={rp.ess} />
+                </td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </ScrollRegion>
+    </>
   );
 }

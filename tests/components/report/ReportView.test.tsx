@@ -21,11 +21,11 @@ describe("ReportView", () => {
   });
 
   it("lists each claim with its status word, kind label, deviation and tolerance", () => {
-    // Status and deviation come right after the claim, the sentence before the kind.
-    expect(t).toContain("centre Confirmed 3.1 × 10 −12 tolerance 1 × 10 −6 rest point found");
-    expect(t).toContain("non-hyperbolic as claimed Rest point centre-ess Contradicted");
-    expect(t).toContain("Forager is an alternative best reply ESS");
-    expect(t).toContain("three-rest-points Inconclusive — budget exceeded Number of rest points");
+    // The kind under the claim's id, then status and deviation, then the engine's sentence.
+    expect(t).toContain("centre Rest point Confirmed 3.1 × 10 −12 tolerance 1 × 10 −6 rest point found");
+    expect(t).toContain("centre-ess ESS Contradicted");
+    expect(t).toContain("Forager is an alternative best reply");
+    expect(t).toContain("three-rest-points Number of rest points Inconclusive — budget exceeded");
     expect(html).toContain('title="3.1e-12"');
   });
 
@@ -106,14 +106,14 @@ describe("ClaimsTable", () => {
         />,
       ),
     );
-    expect(t).toBe("Claims Claim Status Deviation What the engine found Kind c1 Confirmed — is an ESS Author’s note: Figure 2 of the paper ESS");
+    expect(t).toBe("Claims Claim Status Deviation What the engine found c1 ESS Confirmed — is an ESS Author’s note: Figure 2 of the paper");
   });
   it("is a focusable named region, and each cell names its column for the stacked phone layout", () => {
     const html = renderToStaticMarkup(
       <ClaimsTable claims={[{ id: "c1", kind: "ess", status: "contradicted", deviation: 0.2, message: "not an ESS" }]} />,
     );
     expect(html).toMatch(/<div role="region" aria-label="Claims" tabindex="0"/);
-    for (const label of ["Claim", "Status", "Deviation", "What the engine found", "Kind"]) {
+    for (const label of ["Claim", "Status", "Deviation", "What the engine found"]) {
       expect(html).toContain(`data-label="${label}"`);
     }
     // On a phone the status opens the card.
@@ -125,7 +125,8 @@ describe("RestPointsTable", () => {
   it("is a focusable named region whose cells name their columns", () => {
     const html = renderToStaticMarkup(<RestPointsTable restPoints={marshReport.restPoints ?? []} game={marshGame} />);
     expect(html).toMatch(/<div role="region" aria-label="Rest points" tabindex="0"/);
-    expect(html).toContain('data-label="State (Sentinel, Forager, Lurker)"');
+    expect(html).toContain("States list the shares of Sentinel, Forager, Lurker.");
+    expect(html).toContain('data-label="State"');
     for (const label of ["Support", "Stability", "Eigenvalues", "Nash", "ESS"]) {
       expect(html).toContain(`data-label="${label}"`);
     }
