@@ -20,7 +20,7 @@ function roleWordOf(user: object): RoleWord {
 
 function NavLink({ href, children }: { href: string; children: React.ReactNode }) {
   return (
-    <Link href={href} className="rounded-[var(--radius-control)] px-2.5 py-1.5 text-sm font-medium text-ink-soft hover:bg-sunken hover:text-ink">
+    <Link href={href} className="shrink-0 whitespace-nowrap rounded-[var(--radius-control)] px-2.5 py-1.5 text-sm font-medium text-ink-soft hover:bg-sunken hover:text-ink">
       {children}
     </Link>
   );
@@ -44,8 +44,8 @@ export function AccountNav({ fakeMail }: { fakeMail: boolean }) {
 export function AccountArea() {
   const { data, isPending } = authClient.useSession();
   const user = data?.user ?? null;
-  // min-h matches the two-line name block and the link buttons, so nothing below moves.
-  const box = "ml-auto flex min-h-9 items-center gap-2";
+  // min-h-10 holds the tallest state (the two-line name block), so nothing below moves.
+  const box = "ml-auto flex min-h-10 items-center gap-2";
   if (isPending && user === null) {
     return (
       <div className={box} aria-busy="true" data-testid="account-pending">

@@ -6,7 +6,7 @@ import { AccountArea, AccountNav } from "./AccountArea";
 
 function NavLink({ href, children }: { href: string; children: React.ReactNode }) {
   return (
-    <Link href={href} className="rounded-[var(--radius-control)] px-2.5 py-1.5 text-sm font-medium text-ink-soft hover:bg-sunken hover:text-ink">
+    <Link href={href} className="shrink-0 whitespace-nowrap rounded-[var(--radius-control)] px-2.5 py-1.5 text-sm font-medium text-ink-soft hover:bg-sunken hover:text-ink">
       {children}
     </Link>
   );
@@ -23,7 +23,9 @@ export function SiteHeader() {
         <Link href="/" className="rounded-[var(--radius-control)]" aria-label="Restpoint home">
           <Wordmark />
         </Link>
-        <nav aria-label="Main" className="order-last -mx-2.5 flex w-full flex-wrap items-center gap-1 sm:order-none sm:mx-0 sm:w-auto sm:flex-1">
+        {/* One line that scrolls sideways when full: the session's links arrive after the first paint
+            and must not wrap to a second row and push the page down. The padding keeps focus rings inside. */}
+        <nav aria-label="Main" className="order-last -mx-3.5 flex w-full min-w-0 items-center gap-1 overflow-x-auto p-1 sm:order-none sm:-mx-1 sm:w-auto sm:flex-1">
           <NavLink href="/models">Models</NavLink>
           <AccountNav fakeMail={env.useFakeSmtp} />
         </nav>
