@@ -10,13 +10,13 @@ import { app, openBrowser, screenshot, type OpenBrowser } from "./support/harnes
 
 let b: OpenBrowser;
 let dunes = "";
-let market = "";
+let figs = "";
 let hidden = "";
 
 // The running app's own worker re-runs what is deposited here, as it would for an author.
 const APP_WORKER = { worker: "app" } as const;
 const duneSpec = readFileSync("schemas/examples/fog-dune-beetles.json", "utf8");
-const marketSpec = readFileSync("tests/integration/readers-market.json", "utf8");
+const figSpec = readFileSync("schemas/examples/cloud-forest-figs.json", "utf8");
 
 beforeAll(async () => {
   // Seed the running app's database through the deposit functions (the seed module reads the environment on import).
@@ -31,7 +31,7 @@ beforeAll(async () => {
       doi: "10.5555/dunes.2026_7",
     }, APP_WORKER)
   ).slug;
-  market = (await depositPublicModel([marketSpec], { title: "Harbour inspections", authors: [{ name: "Ola Nordmann" }] }, APP_WORKER)).slug;
+  figs = (await depositPublicModel([figSpec], { title: "Lantern figs and midges", authors: [{ name: "Kofi Brandvold" }] }, APP_WORKER)).slug;
   // Private, and with the same strategy names: it must never show up.
   hidden = (
     await depositPublicModel([duneSpec.replace("Fog basking", "Secret fog basking")], { title: "Secret dune draft", visibility: "private" }, APP_WORKER)
@@ -113,24 +113,25 @@ describe("a reader without an account", () => {
 
   it("re-runs a two-population model, checking each population's starting shares", async () => {
     const page = await b.page();
-    await page.goto(`/models/${market}`);
+    await page.goto(`/models/${figs}`);
     await page.getByTestId("registered-figures").waitFor();
-    // Traders' shares (second population) that do not sum to 1 are refused in the browser.
-    await page.locator("#try-0-1-0").fill("0.5");
+    // Midges' shares (second population) that do not sum to 1 are refused in the browser.
+    await page.locator("#try-0-1-0").fill("0.6");
     await page.getByRole("button", { name: "Re-run with these values" }).click();
     await expect.poll(() => page.locator("#try-0-1-sum").innerText()).toContain("sum to 1");
     expect(await page.locator("#try-0-0-0").getAttribute("aria-invalid")).toBeNull();
     await page.getByRole("button", { name: "Scale these shares to sum to 1" }).click();
-    await page.getByTestId("param-fine").fill("4");
+    await page.getByTestId("param-f").fill("2");
     await page.getByRole("button", { name: "Re-run with these values" }).click();
     const own = page.getByTestId("own-results");
     await own.waitFor({ timeout: 30_000 });
-    expect(await page.getByTestId("own-changes").innerText()).toContain("fine = 4 (registered: 2)");
-    // Interior rest point where each population is indifferent (solved by hand): traders 1 = 3 - 7 x, so
-    // Inspect share x = 2/7; inspectors -y + 4 (1 - y) = -3 (1 - y), so Honest share y = 7/8.
+    expect(await page.getByTestId("own-changes").innerText()).toContain("f = 2 (registered: 1)");
+    // The threshold between the two matches, where each population is indifferent (solved by hand,
+    // no split broods): midges 3 y = 2 (1 - y), so early-bloom share y = 0.4 whatever f is; figs
+    // (p - f) a - f (1 - a) = p (1 - a), so early-hatch share a = (p + f) / (2 p) = 6/8 with f = 2 (was 5/8).
     const table = await own.getByRole("table").last().innerText();
-    expect(table).toContain("(0.2857, 0.7143)");
-    expect(table).toContain("(0.875, 0.125)");
+    expect(table).toContain("(0.4, 0.6)");
+    expect(table).toContain("(0.75, 0.25, 0)");
   });
 
   it("gets the same 404 for a private model as for one that does not exist", async () => {
@@ -169,7 +170,7 @@ describe("screenshots of the public pages", () => {
         await screenshot(page, `reader-registry-${label}-${scheme}`);
         for (const [name, slug] of [
           ["model", dunes],
-          ["market", market],
+          ["figs", figs],
         ] as const) {
           await page.goto(`/models/${slug}`);
           // The stored run's figures are drawn in the browser: wait for them.
