@@ -113,10 +113,10 @@ export function RestPointsTable({ restPoints, game }: RestPointsTableProps) {
                 <td className={`py-2 pr-4 max-sm:col-span-2 ${STACK_CELL}`} data-label="Support">
                   {rp.support.join(", ")}
                 </td>
-                <td className={`py-2 pr-4 ${STACK_CELL}`} data-label="Stability">
+                <td className={`py-2 pr-4 max-sm:col-span-2 ${STACK_CELL}`} data-label="Stability">
                   <StabilityWord stability={rp.stability} />
                 </td>
-                <td className={`py-2 pr-4 font-mono text-xs tabular-nums ${STACK_CELL}`} data-label="Eigenvalues">
+                <td className={`py-2 pr-4 font-mono text-xs tabular-nums max-sm:col-span-2 ${STACK_CELL}`} data-label="Eigenvalues">
                   {rp.eigenvalues.length === 0 ? (
                     <span className="text-ink-faint">—</span>
                   ) : (

@@ -13,7 +13,7 @@ export const STACK_HEAD = "max-sm:sr-only";
 export const STACK_BODY = "max-sm:block";
 /** One row: a card on narrow screens (cells in a column, reorderable with `order-*`). */
 export const STACK_ROW = "border-b border-line align-top last:border-0 max-sm:flex max-sm:flex-col max-sm:gap-1.5 max-sm:py-3";
-/** A row as a two-column card on narrow screens, for short values (give long cells `max-sm:col-span-2`). */
+/** A row as a two-column card on narrow screens, pairing short values (give the others `max-sm:col-span-2`). */
 export const STACK_ROW_PAIRS = "border-b border-line align-top last:border-0 max-sm:grid max-sm:grid-cols-2 max-sm:gap-x-4 max-sm:gap-y-1.5 max-sm:py-3";
 /**
  * One cell: on narrow screens a line of its own, led by its column's name from `data-label`
