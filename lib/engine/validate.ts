@@ -3,7 +3,8 @@
  * compiled once with ajv) and then the rules a schema cannot express (matrix shapes, states
  * summing to 1, references between claims, experiments and strategies, parameters used by
  * expressions, payoffs that evaluate to NaN or Infinity, ORCID check digits). Every error
- * carries the RFC 6901 pointer of the offending value and one plain sentence.
+ * carries the RFC 6901 pointer of the offending value and one plain sentence. When the schema
+ * fails, the rules still run on the parts that passed it, so all problems come in one answer.
  */
 import Ajv2020, { type ErrorObject } from "ajv/dist/2020";
 import addFormats from "ajv-formats";
