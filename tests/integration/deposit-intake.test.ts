@@ -102,6 +102,7 @@ describe("demo models", () => {
       venue: { id: venueId, slug: "demo-venue-earlier", name: "demo-venue-earlier", description: "" },
     };
     // What an earlier seed left behind: the same title, another author list, a spec with plain numbers.
+    // The ORCID iD is ORCID's own documented sample iD, as older demo data carried it.
     const oldAuthors = [{ name: "Earlier Demo Author", orcid: "0000-0002-1825-0097", affiliation: "Institute of Imaginary Meadows" }];
     const { parameters: _dropped, ...withoutParameters } = ALPINE_BUMBLEBEES;
     const oldSpec = { ...withoutParameters, authors: oldAuthors, game: { ...ALPINE_BUMBLEBEES.game, payoffs: [[1, 4], [3, 2]] } };
