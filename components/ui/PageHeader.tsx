@@ -5,7 +5,7 @@ export function PageHeader({ overline, title, lede, actions }: { overline?: stri
   return (
     <header className="flex flex-col gap-3 border-b border-line pb-6 sm:flex-row sm:items-end sm:justify-between">
       <div className="flex max-w-3xl flex-col gap-2">
-        {overline === undefined ? null : <p className="text-xs font-semibold uppercase tracking-[0.12em] text-ochre">{overline}</p>}
+        {overline === undefined ? null : <p className="text-sm font-semibold tracking-wide text-ochre">{overline}</p>}
         <h1 className="text-3xl font-bold tracking-tight text-ink">{title}</h1>
         {lede === undefined ? null : <div className="text-base text-ink-soft">{lede}</div>}
       </div>
