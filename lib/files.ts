@@ -11,6 +11,7 @@ import { recordAudit } from "@/lib/audit";
 import { withBusyRetry } from "@/lib/jobs";
 import { Forbidden, NotFound } from "@/lib/errors";
 import { canEditModel, canReadModel, loadVisibleModel, loadVisibleVersion } from "@/lib/models";
+import { publicContentChanged } from "@/lib/public-cache";
 import { openBlob, removeBlob, storeUpload } from "@/lib/storage";
 import type { FileInfo, Viewer } from "@/lib/types/deposit";
 
@@ -73,6 +74,8 @@ export async function attachSupplement(
       );
       return inserted;
     }));
+    // A public version page lists its supplementary files: refresh its cached copy.
+    if (m.visibility === "public") await publicContentChanged(m.id);
     return toFileInfo(row);
   } catch (e) {
     await removeUnreferenced(blob.sha256);
