@@ -22,6 +22,7 @@ import { createServer } from "node:net";
 import os from "node:os";
 import path from "node:path";
 import { parseArgs } from "node:util";
+import { E2E_TSCONFIG } from "@/tests/e2e/support/build";
 
 // ---------------------------------------------------------------------------
 // autocannon ships no type declarations: the part of its API used here.
@@ -194,10 +195,15 @@ async function waitUntilUp(url: string, child: ChildProcess, log: () => string):
 async function main(): Promise<void> {
   const started = Date.now();
   if (!args["no-build"]) {
+    // Next writes the dist folder's type paths into the tsconfig it builds with: the browser
+    // tests' git-ignored one keeps tsconfig.json as committed.
+    if (!existsSync(path.join(APP_DIR, E2E_TSCONFIG))) {
+      throw new Error(`${path.join(APP_DIR, E2E_TSCONFIG)} is missing: run the browser tests (tests/e2e) once: their build writes it.`);
+    }
     console.log(`Building the app into ${path.join(APP_DIR, DIST)} ...`);
     execFileSync(process.execPath, [path.join(APP_DIR, "node_modules/next/dist/bin/next"), "build"], {
       cwd: APP_DIR,
-      env: { ...process.env, NEXT_DIST_DIR: DIST, NEXT_TELEMETRY_DISABLED: "1", NODE_ENV: "production" },
+      env: { ...process.env, NEXT_DIST_DIR: DIST, NEXT_TSCONFIG_PATH: E2E_TSCONFIG, NEXT_TELEMETRY_DISABLED: "1", NODE_ENV: "production" },
       stdio: ["ignore", "ignore", "inherit"],
     });
   }
