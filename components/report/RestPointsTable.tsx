@@ -6,6 +6,25 @@ import { formatEigenvalues, formatNumber, isBimatrixState, STABILITY_LABELS, sta
 export interface RestPointsTableProps {
   restPoints: readonly RestPointReport[];
   game?: GameSpec;
+  /** Most rows drawn (default 60): a large game can have thousands of rest points, which would make the page tens of megabytes. */
+  limit?: number;
+}
+
+export const REST_POINT_ROW_LIMIT = 60;
+
+/**
+ * The rows to draw when there are more than `limit`: ESSs first, then other Nash equilibria,
+ * then asymptotically stable points, then the rest, shown in the report's own order.
+ */
+export function pickRestPoints(restPoints: readonly RestPointReport[], limit: number): RestPointReport[] {
+  if (restPoints.length <= limit) return [...restPoints];
+  const rank = (rp: RestPointReport) => (rp.ess === true ? 0 : rp.nash ? 1 : rp.stability === "asymptotically-stable" ? 2 : 3);
+  const chosen = restPoints
+    .map((rp, i) => ({ rp, i }))
+    .sort((a, b) => rank(a.rp) - rank(b.rp) || a.i - b.i)
+    .slice(0, Math.max(0, limit))
+    .sort((a, b) => a.i - b.i);
+  return chosen.map((c) => c.rp);
 }
 
 function YesNo({ value }: { value: boolean | null }) {
@@ -72,10 +91,11 @@ function StabilityWord({ stability }: { stability: RestPointReport["stability"] 
   );
 }
 
-export function RestPointsTable({ restPoints, game }: RestPointsTableProps) {
-  if (restPoints.length === 0) {
+export function RestPointsTable({ restPoints: all, game, limit = REST_POINT_ROW_LIMIT }: RestPointsTableProps) {
+  if (all.length === 0) {
     return <p className="text-sm text-ink-faint">The engine found no isolated rest point.</p>;
   }
+  const restPoints = pickRestPoints(all, limit);
   const order =
     game?.kind === "symmetric"
       ? game.strategies.join(", ")
@@ -85,6 +105,12 @@ export function RestPointsTable({ restPoints, game }: RestPointsTableProps) {
   return (
     <>
       {/* The header row, which names the order of the shares, is hidden on a phone: say it once here. */}
+      {restPoints.length < all.length && (
+        <p className="mb-2 text-sm text-ink-soft" data-testid="rest-points-shown">
+          Showing {restPoints.length} of {all.length} rest points (evolutionarily stable strategies, Nash equilibria and
+          asymptotically stable points first); the report&apos;s JSON lists every one.
+        </p>
+      )}
       {order !== undefined && <p className="mb-1 text-xs text-ink-faint sm:hidden">States list the shares of {order}.</p>}
       <ScrollRegion label="Rest points">
         <table className={STACK_TABLE} data-testid="rest-points-table">
