@@ -1,16 +1,6 @@
 "use client";
-import { Button } from "@/components/ui/Button";
-import { Notice } from "@/components/ui/Notice";
+import { AreaError } from "@/components/ui/AreaError";
 
-export default function WorkspaceError({ error, reset }: { error: Error & { digest?: string }; reset: () => void }) {
-  return (
-    <div className="flex flex-col items-start gap-4">
-      <Notice tone="error" title="This part of your workspace could not be loaded.">
-        The error was logged{error.digest === undefined ? "" : ` (${error.digest})`}. Your data is unchanged.
-      </Notice>
-      <Button kind="secondary" onClick={reset}>
-        Try again
-      </Button>
-    </div>
-  );
+export default function WorkspaceError(props: { error: Error & { digest?: string }; reset: () => void }) {
+  return <AreaError title="This part of your workspace could not be loaded." {...props} />;
 }
