@@ -1,44 +1,15 @@
 "use client";
-import { useState } from "react";
-import { Button } from "@/components/ui/Button";
-import { Field } from "@/components/ui/Field";
+import { EmailLinkForm } from "@/components/account/EmailLinkForm";
 import { Notice } from "@/components/ui/Notice";
-import { emailSchema } from "@/lib/account-rules";
-import { authClient, authErrorMessage, VERIFIED_CALLBACK } from "@/lib/auth-client";
+import { authClient, VERIFIED_CALLBACK } from "@/lib/auth-client";
 
 export function ResendVerification() {
-  const [email, setEmail] = useState("");
-  const [error, setError] = useState<string | undefined>(undefined);
-  const [sent, setSent] = useState(false);
-  const [busy, setBusy] = useState(false);
-
-  async function submit(e: React.FormEvent) {
-    e.preventDefault();
-    const parsed = emailSchema.safeParse(email);
-    if (!parsed.success) {
-      setError(parsed.error.issues[0]?.message);
-      return;
-    }
-    setBusy(true);
-    const { error: failure } = await authClient.sendVerificationEmail({ email: parsed.data, callbackURL: VERIFIED_CALLBACK });
-    setBusy(false);
-    if (failure !== null) {
-      setError(authErrorMessage(failure));
-      return;
-    }
-    setError(undefined);
-    setSent(true);
-  }
-
-  if (sent) {
-    return <Notice tone="success" title="If that address has an unconfirmed account, a new link is on its way." />;
-  }
   return (
-    <form onSubmit={submit} className="flex flex-col gap-4" noValidate>
-      <Field label="E-mail address" name="email" type="email" autoComplete="email" value={email} onChange={(e) => setEmail(e.target.value)} error={error} />
-      <Button type="submit" kind="secondary" disabled={busy}>
-        {busy ? "Sending…" : "Send a new link"}
-      </Button>
-    </form>
+    <EmailLinkForm
+      send={(email) => authClient.sendVerificationEmail({ email, callbackURL: VERIFIED_CALLBACK })}
+      submitLabel="Send a new link"
+      kind="secondary"
+      sent={<Notice tone="success" title="If that address has an unconfirmed account, a new link is on its way." />}
+    />
   );
 }
