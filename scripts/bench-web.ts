@@ -22,7 +22,7 @@ import { createServer } from "node:net";
 import os from "node:os";
 import path from "node:path";
 import { parseArgs } from "node:util";
-import { E2E_TSCONFIG } from "@/tests/e2e/support/build";
+import { E2E_TSCONFIG, writeE2eTsconfig } from "@/tests/e2e/support/build";
 
 // ---------------------------------------------------------------------------
 // autocannon ships no type declarations: the part of its API used here.
@@ -197,8 +197,9 @@ async function main(): Promise<void> {
   if (!args["no-build"]) {
     // Next writes the dist folder's type paths into the tsconfig it builds with: the browser
     // tests' git-ignored one keeps tsconfig.json as committed.
-    if (!existsSync(path.join(APP_DIR, E2E_TSCONFIG))) {
-      throw new Error(`${path.join(APP_DIR, E2E_TSCONFIG)} is missing: run the browser tests (tests/e2e) once: their build writes it.`);
+    if (APP_DIR === ROOT) writeE2eTsconfig();
+    else if (!existsSync(path.join(APP_DIR, E2E_TSCONFIG))) {
+      throw new Error(`${path.join(APP_DIR, E2E_TSCONFIG)} is missing: run the browser tests (tests/e2e) there once: their build writes it.`);
     }
     console.log(`Building the app into ${path.join(APP_DIR, DIST)} ...`);
     execFileSync(process.execPath, [path.join(APP_DIR, "node_modules/next/dist/bin/next"), "build"], {

@@ -22,7 +22,7 @@ const KEEP = 3;
 /** Next writes its dist folder's type paths into the tsconfig it builds with: give it a git-ignored one. */
 export const E2E_TSCONFIG = "tsconfig.e2e.json";
 
-function writeE2eTsconfig(): void {
+export function writeE2eTsconfig(): void {
   const config = {
     extends: "./tsconfig.json",
     include: ["next-env.d.ts", "**/*.ts", "**/*.tsx"],
