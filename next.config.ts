@@ -8,6 +8,7 @@ const nextConfig: NextConfig = {
   turbopack: { resolveAlias: { odex: "./node_modules/odex/src/odex.js" } },
   serverExternalPackages: ["@libsql/client", "libsql", "smtp-server", "nodemailer"],
   poweredByHeader: false,
+  generateEtags: false,
   // forbidden() / unauthorized() give pages real 403 / 401 answers (lib/authz.ts page helpers).
   experimental: { authInterrupts: true },
   // Type checking is its own step (`npm run typecheck`); the build must not wait on it twice.
