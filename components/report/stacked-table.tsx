@@ -17,10 +17,10 @@ export const STACK_ROW = "border-b border-line align-top last:border-0 max-sm:fl
 export const STACK_ROW_PAIRS = "border-b border-line align-top last:border-0 max-sm:grid max-sm:grid-cols-2 max-sm:gap-x-4 max-sm:gap-y-1.5 max-sm:py-3";
 /**
  * One cell: on narrow screens a line of its own, led by its column's name from `data-label`
- * (so give every cell that attribute).
+ * (so give every cell that attribute; the label is `.rp-stack-cell::before` in app/globals.css,
+ * and `max-sm:before:hidden` drops it).
  */
-export const STACK_CELL =
-  "max-sm:block max-sm:p-0 max-sm:before:mr-2 max-sm:before:font-sans max-sm:before:text-2xs max-sm:before:font-semibold max-sm:before:uppercase max-sm:before:tracking-wide max-sm:before:text-ink-faint max-sm:before:content-[attr(data-label)]";
+export const STACK_CELL = "rp-stack-cell max-sm:block max-sm:p-0";
 
 /**
  * A wide table's container: scrolls sideways when the table is wider than the screen, and is a
