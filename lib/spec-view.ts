@@ -11,11 +11,15 @@ import type { DynamicsSpec, GameSpec, ModelSpec, Parameters, PayoffEntry } from 
 // Formula markup
 // ---------------------------------------------------------------------------
 
-/** Plain text (operators, words) or a symbol: `name` in italics, optional dot above (time derivative), sub- and superscript. */
-export type FormulaPart = { text: string } | { sym: string; sub?: string; sup?: string; dot?: boolean };
+/**
+ * Plain text (operators, words), a name taken from the model (rendered exactly as written), or a
+ * symbol: `sym` in italics, optional dot above (time derivative), sub- and superscript.
+ */
+export type FormulaPart = { text: string } | { name: string } | { sym: string; sub?: string; sup?: string; dot?: boolean };
 export type Formula = FormulaPart[];
 
 const t = (text: string): FormulaPart => ({ text });
+const nm = (name: string): FormulaPart => ({ name });
 const s = (sym: string, sub?: string, extra: { sup?: string; dot?: boolean } = {}): FormulaPart => ({ sym, sub, ...extra });
 
 /** Plain-text reading of a formula: "dx_i/dt = x_i (f_i − φ)". */
@@ -23,10 +27,23 @@ export function formulaText(f: Formula): string {
   return f
     .map((p) => {
       if ("text" in p) return p.text;
+      if ("name" in p) return p.name;
       const base = p.dot ? `d${p.sym}${p.sub ? `_${p.sub}` : ""}/dt` : `${p.sym}${p.sub ? `_${p.sub}` : ""}`;
       return p.sup ? `${base}^${p.sup}` : base;
     })
     .join("");
+}
+
+/** Our symbols beyond Latin-1 spelled out, for a reading that is Latin-1 like the page (components/ui/Glyph.tsx). */
+const SPOKEN: Record<string, string> = { "φ": "phi", "Σ": "sum", "μ": "mu", "η": "eta", "−": "-", "≠": "not equal to" };
+
+/** The reading of a formula for assistive technology: formulaText with our own symbols spelled out. */
+export function formulaReading(f: Formula): string {
+  return formulaText(f.map((p) => ("text" in p ? { text: spell(p.text) } : "sym" in p ? { ...p, sym: spell(p.sym) } : p)));
+}
+
+function spell(text: string): string {
+  return text.replace(/[φΣμη−≠]/gu, (c) => SPOKEN[c] ?? c);
 }
 
 export interface DynamicsView {
@@ -36,16 +53,16 @@ export interface DynamicsView {
   /** The equations, one per line; the first is the law of motion. */
   equations: Formula[];
   /** What the symbols mean, one sentence each. */
-  where: string[];
+  where: Formula[];
   /** The dynamics' own constants with their values. */
   constants: { name: string; symbol: string; value: number }[];
 }
 
 const DYNAMICS_NAMES: Record<string, string> = {
   replicator: "Replicator dynamics",
-  "replicator-mutator": "Replicator–mutator dynamics",
+  "replicator-mutator": "Replicator-mutator dynamics",
   logit: "Logit dynamics",
-  "brown-von-neumann-nash": "Brown–von Neumann–Nash dynamics",
+  "brown-von-neumann-nash": "Brown-von Neumann-Nash dynamics",
   smith: "Smith dynamics",
 };
 
@@ -57,18 +74,25 @@ const DYNAMICS_NAMES: Record<string, string> = {
 export function dynamicsView(dynamics: DynamicsSpec | undefined, game: GameSpec): DynamicsView {
   const d: DynamicsSpec = dynamics ?? { kind: "replicator" };
   const two = game.kind === "bimatrix";
-  const where: string[] = [];
+  const where: Formula[] = [];
   if (two) {
     const [p1, p2] = game.populations;
     where.push(
-      `x is the state of ${p1.name} and y that of ${p2.name}; fᵢ = (A y)ᵢ is the payoff to strategy i of ${p1.name} against y, and gⱼ = (B x)ⱼ the payoff to strategy j of ${p2.name} against x.`,
-      "The same law moves y, with g in place of f.",
+      [
+        s("x"), t(" is the state of "), nm(p1.name), t(" and "), s("y"), t(" that of "), nm(p2.name), t("; "),
+        s("f", "i"), t(" = (A "), s("y"), t(")"), s("", "i"), t(" is the payoff to strategy "), s("i"), t(" of "), nm(p1.name), t(" against "), s("y"), t(", and "),
+        s("g", "j"), t(" = (B "), s("x"), t(")"), s("", "j"), t(" the payoff to strategy "), s("j"), t(" of "), nm(p2.name), t(" against "), s("x"), t("."),
+      ],
+      [t("The same law moves "), s("y"), t(", with "), s("g"), t(" in place of "), s("f"), t(".")],
     );
   } else {
-    where.push("xᵢ is the share of strategy i; fᵢ = (A x)ᵢ is its payoff against the population, with A the payoff table above.");
+    where.push([
+      s("x", "i"), t(" is the share of strategy "), s("i"), t("; "), s("f", "i"), t(" = (A "), s("x"), t(")"), s("", "i"),
+      t(" is its payoff against the population, with A the payoff table above."),
+    ]);
   }
   const phi: Formula = [s("φ"), t(" = "), t("Σ"), s("", "j"), t(" "), s("x", "j"), t(" "), s("f", "j")];
-  const phiWhere = "φ is the population's mean payoff.";
+  const phiWhere: Formula = [s("φ"), t(" is the population's mean payoff.")];
   const xi = s("x", "i");
   const dxi = s("x", "i", { dot: true });
   switch (d.kind) {
@@ -82,7 +106,7 @@ export function dynamicsView(dynamics: DynamicsSpec | undefined, game: GameSpec)
         constants: [],
       };
     case "replicator-mutator":
-      where.push(phiWhere, "qⱼᵢ is the probability that an offspring of a j-strategist plays i.");
+      where.push(phiWhere, [s("q", "ji"), t(" is the probability that an offspring of a "), s("j"), t("-strategist plays "), s("i"), t(".")]);
       return {
         kind: d.kind,
         name: DYNAMICS_NAMES[d.kind] ?? d.kind,
@@ -105,7 +129,7 @@ export function dynamicsView(dynamics: DynamicsSpec | undefined, game: GameSpec)
         constants: [{ name: "noise", symbol: "η", value: d.noise }],
       };
     case "brown-von-neumann-nash":
-      where.push(phiWhere, "kᵢ is strategy i's excess payoff over the mean, where positive.");
+      where.push(phiWhere, [s("k", "i"), t(" is strategy "), s("i"), t("'s excess payoff over the mean, where positive.")]);
       return {
         kind: d.kind,
         name: DYNAMICS_NAMES[d.kind] ?? d.kind,
@@ -118,7 +142,7 @@ export function dynamicsView(dynamics: DynamicsSpec | undefined, game: GameSpec)
         constants: [],
       };
     case "smith":
-      where.push("[z]₊ = max(z, 0).");
+      where.push([t("["), s("z"), t("]"), s("", "+"), t(" = max("), s("z"), t(", 0).")]);
       return {
         kind: d.kind,
         name: DYNAMICS_NAMES[d.kind] ?? d.kind,
@@ -134,7 +158,9 @@ export function dynamicsView(dynamics: DynamicsSpec | undefined, game: GameSpec)
             s("f", "i"),
             t(" − "),
             s("f", "j"),
-            t("]₊ − "),
+            t("]"),
+            s("", "+"),
+            t(" − "),
             xi,
             t(" "),
             t("Σ"),
@@ -143,7 +169,8 @@ export function dynamicsView(dynamics: DynamicsSpec | undefined, game: GameSpec)
             s("f", "j"),
             t(" − "),
             s("f", "i"),
-            t("]₊"),
+            t("]"),
+            s("", "+"),
           ],
         ],
         where,

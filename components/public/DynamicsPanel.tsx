@@ -1,7 +1,8 @@
 /** The dynamics of a model as equations, what the symbols mean, and its constants. */
 import { formatNumber } from "@/components/report/format";
 import type { DynamicsView } from "@/lib/spec-view";
-import { Formula } from "./Formula";
+import { GlyphText } from "@/components/ui/Glyph";
+import { Formula, FormulaProse } from "./Formula";
 
 export function DynamicsPanel({ view }: { view: DynamicsView }) {
   return (
@@ -18,14 +19,20 @@ export function DynamicsPanel({ view }: { view: DynamicsView }) {
         <p className="text-sm">
           {view.constants.map((c) => (
             <span key={c.symbol} className="mr-4">
-              {c.name} <span className="font-serif italic">{c.symbol}</span> = <span className="font-mono">{formatNumber(c.value, 6)}</span>
+              {c.name}{" "}
+              <span className="font-serif italic">
+                <GlyphText text={c.symbol} />
+              </span>{" "}
+              = <span className="font-mono">{formatNumber(c.value, 6)}</span>
             </span>
           ))}
         </p>
       )}
       <ul className="list-disc space-y-1 pl-5 text-sm text-ink-soft">
         {view.where.map((w, i) => (
-          <li key={i}>{w}</li>
+          <li key={i}>
+            <FormulaProse parts={w} />
+          </li>
         ))}
       </ul>
     </div>

@@ -1,6 +1,7 @@
 /** The game's payoffs as a table with the parameter values used (from lib/spec-view.ts). */
 import { formatNumber } from "@/components/report/format";
 import type { PayoffCell, PayoffTableView } from "@/lib/spec-view";
+import { Glyph } from "@/components/ui/Glyph";
 
 function CellText({ cell }: { cell: PayoffCell }) {
   if (cell.value === null) {
@@ -63,7 +64,9 @@ export function PayoffTable({ view }: { view: PayoffTableView }) {
           <thead className="bg-sunken">
             <tr>
               <th scope="col" className="px-3 py-2 text-left font-medium text-ink-soft">
-                {view.rowTitle} <span aria-hidden>╲</span> {view.columnTitle}
+                {view.rowTitle} <span aria-hidden>
+                  <Glyph char="╲" />
+                </span> {view.columnTitle}
               </th>
               {view.columns.map((c, j) => (
                 <th key={j} scope="col" className="px-3 py-2 text-left font-semibold">

@@ -227,7 +227,7 @@ export function PublicVersionView({ data, modelPage }: { data: PublicVersion; mo
               {report?.experiments.map((e) => (
                 <li key={e.id}>
                   <a className="text-tide hover:underline break-all" href={`${base}/experiments/${encodeURIComponent(e.id)}.csv`} download data-testid={`csv-${e.id}`}>
-                    Run “{e.id}” (CSV)
+                    Run <q>{e.id}</q> (CSV)
                   </a>
                 </li>
               ))}

@@ -32,7 +32,7 @@ export function RegisteredFigures({ reportUrl, game }: { reportUrl: string; game
     return (
       <div className="flex min-h-48 flex-col gap-2" data-testid="figures-loading">
         <p className="text-sm text-ink-soft" role="status">
-          Drawing the figures of the stored re-run…
+          Drawing the figures of the stored re-run...
         </p>
         <noscript>
           <p className="text-sm">The figures are drawn by JavaScript. Every run&apos;s data is in the CSV downloads of this page.</p>

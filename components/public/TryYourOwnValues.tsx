@@ -12,6 +12,7 @@ import { StatusMark } from "@/components/report/StatusMark";
 import type { ClaimResult, ModelSpec, Report, SpecError, State } from "@/lib/engine/types";
 import { claimChanges } from "./claim-changes";
 import { plotGameOfSpec } from "./plot-game";
+import { Glyph } from "@/components/ui/Glyph";
 
 interface ExperimentFields {
   id: string;
@@ -274,7 +275,9 @@ export function TryYourOwnValues({ specText, registeredClaims }: { specText: str
           const gKey = `/experiments/${i}/initial`;
           return (
             <fieldset key={e.id} className="flex flex-col gap-3 border-t border-line pt-4">
-              <legend className="text-sm font-semibold">Run “{e.id}”</legend>
+              <legend className="text-sm font-semibold">
+                Run <q>{e.id}</q>
+              </legend>
               <div className="flex max-w-48 flex-col gap-1">
                 <label htmlFor={`try-${i}-duration`} className="text-xs font-semibold text-ink-soft">
                   Duration (time units)
@@ -420,7 +423,9 @@ function ClaimChanges({ changes }: { changes: ReturnType<typeof claimChanges> })
             <p className="flex flex-wrap items-center gap-x-2 gap-y-1">
               <span className="font-mono text-xs break-all">{c.id}</span>
               {c.from === null ? <span className="text-ink-faint">not in the registered report</span> : <StatusMark outcome={c.from} />}
-              <span aria-hidden="true">→</span>
+              <span aria-hidden="true">
+                <Glyph char="→" />
+              </span>
               <span className="sr-only">now</span>
               <StatusMark outcome={c.to} />
             </p>

@@ -1,9 +1,9 @@
 /** Words for the registry's filter values, shared by the search form and result cards. */
 export const DYNAMICS_LABELS: Record<string, string> = {
   replicator: "Replicator",
-  "replicator-mutator": "Replicator–mutator",
+  "replicator-mutator": "Replicator-mutator",
   logit: "Logit",
-  "brown-von-neumann-nash": "Brown–von Neumann–Nash",
+  "brown-von-neumann-nash": "Brown-von Neumann-Nash",
   smith: "Smith",
 };
 

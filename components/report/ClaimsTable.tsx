@@ -4,6 +4,7 @@ import { claimKindLabel } from "./format";
 import { Sci } from "./Sci";
 import { StatusMark } from "./StatusMark";
 import { ScrollRegion, STACK_BODY, STACK_CELL, STACK_HEAD, STACK_ROW, STACK_TABLE } from "./stacked-table";
+import { Glyph } from "@/components/ui/Glyph";
 
 export interface ClaimsTableProps {
   claims: readonly ClaimResult[];
@@ -45,7 +46,9 @@ export function ClaimsTable({ claims, specClaims, caption = "Claims" }: ClaimsTa
                 </td>
                 <td className={`py-2 pr-4 whitespace-nowrap max-sm:order-3 ${STACK_CELL}`} data-label="Deviation">
                   {c.deviation === undefined ? (
-                    <span className="text-ink-faint" aria-label="no deviation">—</span>
+                    <span className="text-ink-faint">
+                      <Glyph char="—" label="no deviation" />
+                    </span>
                   ) : (
                     <Sci value={c.deviation} />
                   )}
@@ -60,7 +63,7 @@ export function ClaimsTable({ claims, specClaims, caption = "Claims" }: ClaimsTa
                   <span>{c.message}</span>
                   {note !== undefined && note !== "" && (
                     <span className="mt-1 block text-xs text-ink-faint italic">
-                      Author&rsquo;s note: {note}
+                      Author&apos;s note: {note}
                     </span>
                   )}
                 </td>

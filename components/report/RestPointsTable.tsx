@@ -2,6 +2,7 @@
 import type { GameSpec, RestPointReport } from "@/lib/engine/types";
 import { ScrollRegion, STACK_BODY, STACK_CELL, STACK_HEAD, STACK_ROW_PAIRS, STACK_TABLE } from "./stacked-table";
 import { formatEigenvalues, formatNumber, isBimatrixState, STABILITY_LABELS, stateLabels } from "./format";
+import { Glyph } from "@/components/ui/Glyph";
 
 export interface RestPointsTableProps {
   restPoints: readonly RestPointReport[];
@@ -144,7 +145,9 @@ export function RestPointsTable({ restPoints: all, game, limit = REST_POINT_ROW_
                 </td>
                 <td className={`py-2 pr-4 font-mono text-xs tabular-nums max-sm:col-span-2 ${STACK_CELL}`} data-label="Eigenvalues">
                   {rp.eigenvalues.length === 0 ? (
-                    <span className="text-ink-faint">—</span>
+                    <span className="text-ink-faint">
+                      <Glyph char="—" label="none" />
+                    </span>
                   ) : (
                     formatEigenvalues(rp.eigenvalues).map((e, j) => (
                       <span key={j} className="block whitespace-nowrap max-sm:ml-0 max-sm:inline max-sm:after:content-['_·_'] max-sm:last:after:content-none">

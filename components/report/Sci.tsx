@@ -1,4 +1,8 @@
-/** A number in scientific notation with a real superscript, e.g. 3.2 × 10⁻⁵; plain text in its title. */
+/**
+ * A number in scientific notation with a real superscript, e.g. 3.2 × 10<sup>-5</sup>; plain text in
+ * its title. Latin-1 only (components/ui/Glyph.tsx): the spaces around × are margins, the
+ * exponent's sign a hyphen-minus.
+ */
 import { scientificText, toScientific } from "./format";
 
 export function Sci({ value, digits = 2 }: { value: number; digits?: number }) {
@@ -14,8 +18,8 @@ export function Sci({ value, digits = 2 }: { value: number; digits?: number }) {
   return (
     <span className="font-mono tabular-nums whitespace-nowrap" title={scientificText(value, 6)}>
       {mantissa}
-      {"\u2009×\u200910"}
-      <sup>{exponent < 0 ? `\u2212${-exponent}` : exponent}</sup>
+      <span className="mx-[0.16em]">×</span>10
+      <sup>{exponent}</sup>
     </span>
   );
 }

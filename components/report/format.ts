@@ -4,12 +4,9 @@
  */
 import type { Eigenvalue, GameSpec, State } from "@/lib/engine/types";
 
-/** Unicode minus: a hyphen next to digits reads as a dash in proportional fonts. */
-const MINUS = "\u2212";
-
-function signed(text: string): string {
-  return text.startsWith("-") ? MINUS + text.slice(1) : text;
-}
+// Signs are the ASCII hyphen-minus, not U+2212: numbers stay copyable as numbers, and the page
+// stays Latin-1 (components/ui/Glyph.tsx says why that matters); values are set in a monospace
+// face, where the hyphen is as wide as a digit.
 
 export interface Scientific {
   mantissa: string;
@@ -25,7 +22,7 @@ export function toScientific(value: number, digits = 2): Scientific {
   const [m = "0", e = "0"] = value.toExponential(Math.max(digits - 1, 0)).split("e");
   // Trailing zeros of the mantissa carry no information here ("3.0" -> "3").
   const trimmed = m.includes(".") ? m.replace(/\.?0+$/, "") : m;
-  return { mantissa: signed(trimmed), exponent: Number(e) };
+  return { mantissa: trimmed, exponent: Number(e) };
 }
 
 /** Plain-text scientific notation, e.g. "3.2e-5" (for titles, mail and CSV where markup is unavailable). */
@@ -45,8 +42,7 @@ export function formatNumber(value: number, digits = 4, zeroBelow = 1e-10): stri
   if (Math.abs(value) < zeroBelow) return "0";
   const abs = Math.abs(value);
   if (abs >= 1e6 || abs < 1e-4) return scientificText(value, digits);
-  const fixed = Number(value.toPrecision(digits)).toString();
-  return signed(fixed);
+  return Number(value.toPrecision(digits)).toString();
 }
 
 /**
@@ -75,7 +71,7 @@ export function formatEigenvalues(eigenvalues: readonly Eigenvalue[], digits = 4
       used[j] = true;
       out.push(`${reText} ± ${imText}i`);
     } else {
-      out.push(`${reText} ${im < 0 ? MINUS : "+"} ${imText}i`);
+      out.push(`${reText} ${im < 0 ? "-" : "+"} ${imText}i`);
     }
   });
   return out;

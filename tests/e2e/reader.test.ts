@@ -157,6 +157,30 @@ describe("a reader without an account", () => {
   });
 });
 
+describe("the public model page's markup", () => {
+  // Next.js writes a cached page out from one string; a character above U+00FF makes the whole
+  // string two-byte and every response slower to encode (components/ui/Glyph.tsx, measured with
+  // `npm run bench:web`). Our own symbols are therefore CSS glyphs; these models' own text is Latin-1.
+  it("is Latin-1 throughout when the model's own text is, and still shows the symbols", async () => {
+    for (const slug of [dunes, figs]) {
+      await expect.poll(async () => (await fetch(`${app().baseUrl}/models/${slug}/v/1/report.json`)).status, { timeout: 60_000 }).toBe(200);
+      for (const path of [`/models/${slug}`, `/models/${slug}/v/1`]) {
+        const html = await (await fetch(`${app().baseUrl}${path}`)).text();
+        expect(html).toContain('data-testid="claims-table"');
+        const beyond = [...html.matchAll(/[^\u0000-\u00ff]/gu)].map((m) => `${m[0]} in ${html.slice(Math.max(0, (m.index ?? 0) - 40), (m.index ?? 0) + 5)}`);
+        expect(beyond, path).toEqual([]);
+      }
+    }
+    const page = await b.page();
+    await page.goto(`/models/${dunes}`);
+    const equations = page.getByRole("region", { name: "Equations of the dynamics" });
+    // The screen-reader reading of the law of motion, and the glyphs CSS draws for it.
+    await expect.poll(() => equations.getByRole("math").first().getAttribute("aria-label")).toBe("dx_i/dt = x_i (f_i - phi)");
+    const drawn = await equations.locator(".rp-glyph").evaluateAll((els) => els.map((e) => getComputedStyle(e, "::before").content));
+    expect(drawn).toEqual(['"−"', '"φ"', '"φ"', '"Σ"']);
+  });
+});
+
 describe("screenshots of the public pages", () => {
   for (const scheme of ["light", "dark"] as const) {
     for (const [label, width] of [

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import type { GameSpec } from "@/lib/engine/types";
-import { dynamicsView, formulaText, payoffTable, readableSpec } from "@/lib/spec-view";
+import { dynamicsView, formulaReading, formulaText, payoffTable, readableSpec } from "@/lib/spec-view";
 
 // A contest over a resource of value V at cost C: the hawk-dove table (Maynard Smith 1982, from memory).
 const hawkDove: { parameters: Record<string, number>; game: GameSpec } = {
@@ -111,15 +111,25 @@ describe("dynamicsView", () => {
     const bnn = dynamicsView({ kind: "brown-von-neumann-nash" }, sym);
     expect(bnn.equations.map(formulaText)).toEqual(["dx_i/dt = k_i − x_i Σ_j k_j", "k_i = max(f_i − φ, 0)", "φ = Σ_j x_j f_j"]);
     expect(formulaText(dynamicsView({ kind: "smith" }, sym).equations[0] ?? [])).toBe(
-      "dx_i/dt = Σ_j x_j [f_i − f_j]₊ − x_i Σ_j [f_j − f_i]₊",
+      "dx_i/dt = Σ_j x_j [f_i − f_j]_+ − x_i Σ_j [f_j − f_i]_+",
     );
   });
 
   it("names both populations for a two-population game", () => {
     const v = dynamicsView({ kind: "replicator" }, bimatrix);
-    expect(v.where[0]).toBe(
-      "x is the state of Buyers and y that of Sellers; fᵢ = (A y)ᵢ is the payoff to strategy i of Buyers against y, and gⱼ = (B x)ⱼ the payoff to strategy j of Sellers against x.",
+    expect(formulaText(v.where[0] ?? [])).toBe(
+      "x is the state of Buyers and y that of Sellers; f_i = (A y)_i is the payoff to strategy i of Buyers against y, and g_j = (B x)_j the payoff to strategy j of Sellers against x.",
     );
+    // Population names are parts of their own, rendered exactly as written (never as glyphs).
+    expect(v.where[0]?.filter((p) => "name" in p)).toEqual([{ name: "Buyers" }, { name: "Sellers" }, { name: "Buyers" }, { name: "Sellers" }]);
+  });
+
+  it("reads a formula aloud with our own symbols spelled out, in Latin-1 like the page", () => {
+    const v = dynamicsView({ kind: "replicator-mutator", mutationRate: 0.01 }, sym);
+    const readings = v.equations.map(formulaReading);
+    expect(readings[0]).toBe("dx_i/dt = sum_j x_j f_j q_ji - x_i phi");
+    expect(readings[2]).toBe("q_ii = 1 - mu,  q_ji = mu / (n - 1) for j not equal to i");
+    for (const r of readings) expect(r).toMatch(/^[\u0000-\u00ff]*$/);
   });
 });
 

@@ -22,10 +22,12 @@ describe("ReportView", () => {
 
   it("lists each claim with its status word, kind label, deviation and tolerance", () => {
     // The kind under the claim's id, then status and deviation, then the engine's sentence.
-    expect(t).toContain("centre Rest point Confirmed 3.1 × 10 −12 tolerance 1 × 10 −6 rest point found");
+    expect(t).toContain("centre Rest point Confirmed 3.1 × 10 -12 tolerance 1 × 10 -6 rest point found");
     expect(t).toContain("centre-ess ESS Contradicted");
     expect(t).toContain("Forager is an alternative best reply");
-    expect(t).toContain("three-rest-points Number of rest points Inconclusive — budget exceeded");
+    // No deviation: a dash drawn by CSS (components/ui/Glyph.tsx), named for screen readers.
+    expect(t).toContain("three-rest-points Number of rest points Inconclusive budget exceeded");
+    expect(html).toContain('<span class="rp-glyph" style="--rp-glyph:&quot;\\2014&quot;" role="img" aria-label="no deviation"></span>');
     expect(html).toContain('title="3.1e-12"');
   });
 
@@ -106,7 +108,11 @@ describe("ClaimsTable", () => {
         />,
       ),
     );
-    expect(t).toBe("Claims Claim Status Deviation What the engine found c1 ESS Confirmed — is an ESS Author’s note: Figure 2 of the paper");
+    const html = renderToStaticMarkup(
+      <ClaimsTable claims={[{ id: "c1", kind: "ess", status: "confirmed", message: "is an ESS" }]} />,
+    );
+    expect(html).toContain('role="img" aria-label="no deviation"');
+    expect(t).toBe("Claims Claim Status Deviation What the engine found c1 ESS Confirmed is an ESS Author's note: Figure 2 of the paper");
   });
   it("is a focusable named region, and each cell names its column for the stacked phone layout", () => {
     const html = renderToStaticMarkup(

@@ -12,7 +12,7 @@ export const publicVersion = cache(
 
 function shorten(text: string, max: number): string {
   const flat = text.replace(/\s+/g, " ").trim();
-  return flat.length <= max ? flat : `${flat.slice(0, max - 1).trimEnd()}…`;
+  return flat.length <= max ? flat : `${flat.slice(0, max - 3).trimEnd()}...`;
 }
 
 export function versionMetadata(data: PublicVersion): Metadata {
