@@ -71,7 +71,8 @@ export class VerificationWorker {
       this.runner = options.runner;
       this.pool = null;
     } else {
-      const pool = new EnginePool({ size: this.concurrency, taskModule: options.taskModule });
+      // Background work: the engine threads yield the CPU to the web server's requests.
+      const pool = new EnginePool({ size: this.concurrency, taskModule: options.taskModule, niceness: 10 });
       const holdMs = options.holdMs;
       this.pool = pool;
       this.runner = ({ specText }) => pool.run<Report>({ specText, holdMs }, this.runTimeoutMs + (holdMs ?? 0));

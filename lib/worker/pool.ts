@@ -43,13 +43,14 @@ class Slot {
   constructor(
     private readonly entry: string,
     private readonly taskModule: string | undefined,
+    private readonly niceness: number,
     private readonly onIdle: () => void,
   ) {}
 
   private spawn(): Promise<void> {
     // No inherited flags: the entry sets up its own loader, and a parent's flags (an inspector
     // port, --input-type, a loader of the Next server) can break or clash in a thread.
-    const worker = new Worker(this.entry, { workerData: { taskModule: this.taskModule }, execArgv: [] });
+    const worker = new Worker(this.entry, { workerData: { taskModule: this.taskModule, niceness: this.niceness }, execArgv: [] });
     this.worker = worker;
     this.ready = new Promise<void>((resolve, reject) => {
       worker.once("error", reject);
@@ -127,6 +128,12 @@ export interface EnginePoolOptions {
   entry?: string;
   /** Task module the threads import (tests swap in their own); default the engine task. */
   taskModule?: string;
+  /**
+   * Nice value each thread gives itself (0 to 19; higher yields more). Background verification
+   * uses it so the web server's own thread wins the CPU while jobs run; the readers' check API
+   * runs at normal priority because a request waits on it.
+   */
+  niceness?: number;
 }
 
 export class EnginePool {
@@ -138,7 +145,7 @@ export class EnginePool {
   constructor(options: EnginePoolOptions) {
     const entry = options.entry ?? defaultThreadEntry();
     const size = Math.max(1, Math.floor(options.size));
-    this.slots = Array.from({ length: size }, () => new Slot(entry, options.taskModule, () => this.dispatch()));
+    this.slots = Array.from({ length: size }, () => new Slot(entry, options.taskModule, options.niceness ?? 0, () => this.dispatch()));
   }
 
   get size(): number {

@@ -1,4 +1,5 @@
 import "./deposit-env";
+import os from "node:os";
 import path from "node:path";
 import { threadId } from "node:worker_threads";
 import { beforeAll, describe, expect, it } from "vitest";
@@ -51,6 +52,20 @@ describe("engine thread pool", () => {
       await pool.close();
     }
     await expect(pool.run({ specText: "ok" }, 1000)).rejects.toThrow("the pool was closed");
+  }, 60_000);
+
+  // man 2 setpriority (NOTES): on Linux the nice value is a per-thread attribute.
+  it.runIf(process.platform === "linux")("lowers the priority of its own threads only when asked to yield", async () => {
+    const background = new EnginePool({ size: 1, taskModule, niceness: 10 });
+    const foreground = new EnginePool({ size: 1, taskModule });
+    try {
+      expect((await background.run<Report>({ specText: "nice" }, 20_000)).notes).toEqual(["nice 10"]);
+      expect((await foreground.run<Report>({ specText: "nice" }, 20_000)).notes).toEqual([`nice ${os.getPriority(0)}`]);
+      // The calling (web server's) thread keeps its priority.
+      expect(os.getPriority(0)).toBe(0);
+    } finally {
+      await Promise.all([background.close(), foreground.close()]);
+    }
   }, 60_000);
 
   it("runs as many tasks at once as it has threads, and queues the rest", async () => {
