@@ -5,7 +5,8 @@
  * DATA_DIR with a public demo model deposited and re-run through the deposit functions,
  * starts `next start` on a free local port with the in-process verification worker, and
  * drives it with autocannon:
- *   1. the public model page and its report API at 20 and 50 concurrent connections;
+ *   1. the public model page and its report API at 20 and 50 concurrent connections, and for
+ *      scale the framework's floor (a fixed route handler, a page prerendered at build time);
  *   2. the stateless check API while verification jobs run in the worker's thread pool.
  * Prints p50/p95/p99 latency and requests per second beside the targets (page p95 < 100 ms,
  * API p95 < 50 ms). A benchmark, not a test: it never fails on a missed target.
@@ -274,6 +275,10 @@ async function main(): Promise<void> {
     const rows: Figures[] = [];
     for (const c of [20, 50]) rows.push(await run("model page", { url: pageUrl, connections: c, duration: SECONDS, timeout: 30 }, 100));
     for (const c of [20, 50]) rows.push(await run("report API", { url: apiUrl, connections: c, duration: SECONDS, timeout: 30 }, 50));
+    // The framework's own floor on this machine, for scale: a route handler with a fixed body and
+    // no database read, and a page prerendered at build time, at the highest load.
+    rows.push(await run("floor: fixed route", { url: `${base}/schemas/model-spec.v1.json`, connections: 50, duration: SECONDS, timeout: 30 }));
+    rows.push(await run("floor: static page", { url: `${base}/forgot-password`, connections: 50, duration: SECONDS, timeout: 30 }));
 
     // The check API alone, then while the worker verifies queued versions in its threads.
     let ip = 0;
@@ -292,22 +297,37 @@ async function main(): Promise<void> {
 
     const { addVersion } = await import("@/lib/versions");
     const { rawClient } = await import("@/db/client");
-    for (let i = 0; i < 6; i++) await addVersion(slug, heavySpec(18, 1000 + i), { id: ownerId, role: "author" });
-    const jobStates = async () =>
-      (await rawClient().execute("select state, count(*) as n from job group by state")).rows.map((r) => `${String(r.state)} ${String(r.n)}`).join(", ");
+    const jobCount = async (state: string) =>
+      Number((await rawClient().execute({ sql: "select count(*) as n from job where state = ?", args: [state] })).rows[0]?.n ?? 0);
+    // Keep the worker busy for the whole of both loaded runs: a new slow version whenever the
+    // queue runs dry. Each one becomes the model's newest, so the page measured below is version 1's.
+    let seed = 1000;
+    const addHeavy = () => addVersion(slug, heavySpec(18, seed++), { id: ownerId, role: "author" });
+    for (let i = 0; i < 3; i++) await addHeavy();
+    let topping = false;
+    const topUp = setInterval(() => {
+      if (topping) return;
+      topping = true;
+      void jobCount("queued")
+        .then((n) => (n < 2 ? addHeavy() : undefined))
+        .finally(() => (topping = false));
+    }, 200);
     // Let the worker claim the first job before measuring.
     const claimDeadline = Date.now() + 20_000;
-    while (!(await jobStates()).includes("running") && Date.now() < claimDeadline) await new Promise((r) => setTimeout(r, 100));
-    const before = await jobStates();
+    while ((await jobCount("running")) === 0 && Date.now() < claimDeadline) await new Promise((r) => setTimeout(r, 100));
+    const finishedBefore = await jobCount("finished");
+    const started2 = Date.now();
     rows.push(await run("check API, jobs running", { url: base, connections: 2, duration: SECONDS, requests: [checkRequest()], timeout: 30 }));
-    const after = await jobStates();
     // The public page too, while the worker is busy.
-    rows.push(await run("model page, jobs running", { url: pageUrl, connections: 20, duration: SECONDS, timeout: 30 }, 100));
+    const v1Url = `${base}/models/${slug}/v/1`;
+    rows.push(await run("model page v1, jobs running", { url: v1Url, connections: 20, duration: SECONDS, timeout: 30 }, 100));
+    clearInterval(topUp);
+    const busy = `${(await jobCount("finished")) - finishedBefore} verification jobs finished during those ${((Date.now() - started2) / 1000).toFixed(0)} s, ${await jobCount("running")} running at the end`;
 
     console.log("");
     console.log(`Restpoint web benchmark: ${os.cpus().length} cores, load average ${os.loadavg().map((l) => l.toFixed(2)).join(" ")} (shared machine)`);
     console.log(`model page ${pageUrl} (${(pageBytes / 1024).toFixed(0)} KiB), report API ${apiUrl} (${(apiBytes / 1024).toFixed(0)} KiB), ${SECONDS} s per load`);
-    console.log(`jobs before the loaded check run: ${before}; after: ${after}`);
+    console.log(`while jobs run: ${busy} (engine thread at nice 10)`);
     console.log("");
     print(rows);
     console.log(`\nTotal ${((Date.now() - started) / 1000).toFixed(0)} s.`);
