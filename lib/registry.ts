@@ -292,6 +292,11 @@ export function versionPath(slug: string, number: number): string {
   return `/models/${encodeURIComponent(slug)}/v/${number}`;
 }
 
+/** The report API's address for a version (what the page's figures are drawn from). */
+export function reportApiPath(slug: string, number: number): string {
+  return `/api/v1/models/${encodeURIComponent(slug)}/versions/${number}/report`;
+}
+
 /** The citation facts of a public version (lib/citation.ts renders them). */
 export function citationOf(p: PublicVersion): CitationInput {
   return {

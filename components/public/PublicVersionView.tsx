@@ -10,7 +10,7 @@ import { ReportView } from "@/components/report";
 import { VerdictTag } from "@/components/status/VerdictTag";
 import { Notice } from "@/components/ui/Notice";
 import { toBibtex, toPlainText } from "@/lib/citation";
-import { citationOf, versionPath, type PublicVersion } from "@/lib/registry";
+import { citationOf, reportApiPath, versionPath, type PublicVersion } from "@/lib/registry";
 import { dynamicsView, payoffTable } from "@/lib/spec-view";
 import { DynamicsPanel } from "./DynamicsPanel";
 import { dynamicsLabel } from "./labels";
@@ -141,7 +141,7 @@ export function PublicVersionView({ data, modelPage }: { data: PublicVersion; mo
                 specClaims={spec?.claims}
                 figures={
                   game === undefined ? undefined : (
-                    <RegisteredFigures reportUrl={`${base}/report.json`} game={plotGameOf(game)} />
+                    <RegisteredFigures reportUrl={reportApiPath(model.slug, version.number)} game={plotGameOf(game)} />
                   )
                 }
               />

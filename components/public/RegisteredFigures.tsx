@@ -1,9 +1,11 @@
 "use client";
 /**
- * The figures of the server's stored re-run, drawn in the browser from the version's
- * report.json. Keeping the samples out of the server-rendered page makes it several times
- * lighter (every sample would otherwise be sent twice: as HTML and as the page's React
- * payload); the claims and rest points stay server-rendered text.
+ * The figures of the server's stored re-run, drawn in the browser from the version's report as
+ * the report API answers it (compact JSON from an in-memory cache, with an ETag; the pretty-printed
+ * report.json download is built afresh on each request and is several times slower to serve).
+ * Keeping the samples out of the server-rendered page makes it several times lighter (every
+ * sample would otherwise be sent twice: as HTML and as the page's React payload); the claims and
+ * rest points stay server-rendered text.
  */
 import { useEffect, useState } from "react";
 import { ExperimentFigures, type PlotGame } from "@/components/plots";
@@ -18,7 +20,9 @@ export function RegisteredFigures({ reportUrl, game }: { reportUrl: string; game
     fetch(reportUrl, { signal: controller.signal })
       .then(async (res) => {
         if (!res.ok) throw new Error(`status ${res.status}`);
-        setState({ kind: "ready", report: (await res.json()) as Report });
+        const answer = (await res.json()) as { report: Report | null };
+        if (answer.report === null) throw new Error("no stored report");
+        setState({ kind: "ready", report: answer.report });
       })
       .catch((e: unknown) => {
         if (controller.signal.aborted) return;
