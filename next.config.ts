@@ -8,6 +8,11 @@ const nextConfig: NextConfig = {
   turbopack: { resolveAlias: { odex: "./node_modules/odex/src/odex.js" } },
   serverExternalPackages: ["@libsql/client", "libsql", "smtp-server", "nodemailer"],
   poweredByHeader: false,
+  // Next gzips each response anew for clients that ask (a cached page is stored uncompressed):
+  // about half the cached model page's rate at 20 connections (npm run bench:web). Behind a
+  // proxy that compresses, RESTPOINT_COMPRESS=0 leaves it to the proxy. Read here for the same
+  // reason as NEXT_DIST_DIR above.
+  compress: process.env.RESTPOINT_COMPRESS !== "0",
   generateEtags: false,
   // forbidden() / unauthorized() give pages real 403 / 401 answers (lib/authz.ts page helpers).
   experimental: { authInterrupts: true },
