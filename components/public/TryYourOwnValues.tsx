@@ -9,10 +9,10 @@ import { useMemo, useRef, useState, type FormEvent } from "react";
 import { ExperimentFigures } from "@/components/plots";
 import { RestPointsTable } from "@/components/report";
 import { StatusMark } from "@/components/report/StatusMark";
+import { Glyph } from "@/components/ui/Glyph";
 import type { ClaimResult, ModelSpec, Report, SpecError, State } from "@/lib/engine/types";
 import { claimChanges } from "./claim-changes";
 import { plotGameOfSpec } from "./plot-game";
-import { Glyph } from "@/components/ui/Glyph";
 
 interface ExperimentFields {
   id: string;
