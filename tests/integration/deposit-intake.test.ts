@@ -67,18 +67,23 @@ describe("audit trail", () => {
   });
 });
 
+/** The seed's context with only the author and the venue filled in (the models need no editor or admin). */
+function demoContext(author: { id: string; email: string }, name: string, venueId: string, venueSlug: string) {
+  return {
+    accounts: {
+      author: { id: author.id, email: author.email, name },
+      editor: { id: "", email: "", name: "" },
+      admin: { id: "", email: "", name: "" },
+    },
+    venue: { id: venueId, slug: venueSlug, name: venueSlug, description: "" },
+  };
+}
+
 describe("demo models", () => {
   it("deposits each demo model once, however often the seed runs", async () => {
     const author = await makeUser("Demo");
     const venueId = await makeVenue("demo-venue");
-    const ctx = {
-      accounts: {
-        author: { id: author.id, email: author.email, name: "Demo" },
-        editor: { id: "", email: "", name: "" },
-        admin: { id: "", email: "", name: "" },
-      },
-      venue: { id: venueId, slug: "demo-venue", name: "demo-venue", description: "" },
-    };
+    const ctx = demoContext(author, "Demo", venueId, "demo-venue");
     await seedDemoModels(ctx);
     await seedDemoModels(ctx);
     const models = await db.select().from(model).where(eq(model.ownerId, author.id));
@@ -93,14 +98,7 @@ describe("demo models", () => {
     const author = await makeUser("Demo2");
     const owner = { id: author.id, role: "author" };
     const venueId = await makeVenue("demo-venue-earlier");
-    const ctx = {
-      accounts: {
-        author: { id: author.id, email: author.email, name: "Demo2" },
-        editor: { id: "", email: "", name: "" },
-        admin: { id: "", email: "", name: "" },
-      },
-      venue: { id: venueId, slug: "demo-venue-earlier", name: "demo-venue-earlier", description: "" },
-    };
+    const ctx = demoContext(author, "Demo2", venueId, "demo-venue-earlier");
     // What an earlier seed left behind: the same title, another author list, a spec with plain numbers.
     // The ORCID iD is ORCID's own documented sample iD, as older demo data carried it.
     const oldAuthors = [{ name: "Earlier Demo Author", orcid: "0000-0002-1825-0097", affiliation: "Institute of Imaginary Meadows" }];
